@@ -1,0 +1,11 @@
+/**
+ * Forecatch EMG: conditioning filters, onset detectors and the onset review journal.
+ */
+export * from './complexZpk';
+export * from './butterworthZpk';
+export * from './zpkToSos';
+export * from './butterworthSos';
+export * from './sosFilt';
+export * from './sosFiltFilt';
+export * from './iirNotch';
+export { checkSos } from './sosKernel';
