@@ -1,0 +1,193 @@
+/**
+ * Scalar-local Kalman filter kernels for the per-axis shapes (n = 2 or 3 states, m = 1 observed
+ * component), used automatically by {@link kalmanFilter}. They perform the same operations as the
+ * general dense code (same Joseph form, same symmetrisation) without matrix objects or inner loops,
+ * and agree with it to rounding. Internal to `shared/ssm/`.
+ */
+import { NotPositiveDefiniteError } from '../errors';
+import type { StateSpaceModel } from './stateSpaceModel';
+import type { FilterResult } from './kalmanFilter';
+
+const LOG_2PI = Math.log(2 * Math.PI);
+
+function notPd(k: number, t: number): NotPositiveDefiniteError {
+  return new NotPositiveDefiniteError(
+    `kalmanFilter: innovation variance S is not positive at sample ${k} (t = ${t} s); check R and P0`,
+  );
+}
+
+/** Filter for n = 2, m = 1; fills `res` (already allocated and checked). */
+export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
+  const T = timesS.length;
+  const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;
+  const Fw = new Float64Array(4);
+  const uw = new Float64Array(2);
+  const Qw = new Float64Array(4);
+  const h0 = model.H[0], h1 = model.H[1], r = model.R[0];
+  let f00 = 0, f01 = 0, f10 = 0, f11 = 0, u0 = 0, u1 = 0, q00 = 0, q01 = 0, q10 = 0, q11 = 0;
+  // Filtered moments of the previous step (a: mean, c: covariance).
+  let a0 = 0, a1 = 0, c00 = 0, c01 = 0, c11 = 0;
+  let lastDt = NaN;
+  let logLik = 0;
+  let nObs = 0;
+  for (let k = 0; k < T; k++) {
+    let x0: number, x1: number, p00: number, p01: number, p11: number;
+    if (k === 0) {
+      const P0 = model.P0;
+      x0 = model.x0[0]; x1 = model.x0[1];
+      p00 = P0[0]; p01 = 0.5 * (P0[1] + P0[2]); p11 = P0[3];
+    } else {
+      const dt = timesS[k] - timesS[k - 1];
+      if (dt !== lastDt) {
+        model.discretize(dt, Fw, uw, Qw);
+        f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
+        u0 = uw[0]; u1 = uw[1];
+        q00 = Qw[0]; q01 = Qw[1]; q10 = Qw[2]; q11 = Qw[3];
+        lastDt = dt;
+      }
+      // x_k|k-1 = F x + u
+      x0 = u0 + f00 * a0 + f01 * a1;
+      x1 = u1 + f10 * a0 + f11 * a1;
+      // G = F C; P = G F' + Q (symmetrised)
+      const g00 = f00 * c00 + f01 * c01, g01 = f00 * c01 + f01 * c11;
+      const g10 = f10 * c00 + f11 * c01, g11 = f10 * c01 + f11 * c11;
+      p00 = g00 * f00 + g01 * f01 + q00;
+      p01 = 0.5 * ((g00 * f10 + g01 * f11 + q01) + (g10 * f00 + g11 * f01 + q10));
+      p11 = g10 * f10 + g11 * f11 + q11;
+    }
+    const xo = 2 * k, po = 4 * k;
+    xPred[xo] = x0; xPred[xo + 1] = x1;
+    PPred[po] = p00; PPred[po + 1] = p01; PPred[po + 2] = p01; PPred[po + 3] = p11;
+    const zk = z[k];
+    if (zk !== zk) {
+      a0 = x0; a1 = x1; c00 = p00; c01 = p01; c11 = p11;
+      nis[k] = NaN;
+      nisDof[k] = 0;
+    } else {
+      // P H', S = H P H' + R
+      const ph0 = p00 * h0 + p01 * h1;
+      const ph1 = p01 * h0 + p11 * h1;
+      const s = h0 * ph0 + h1 * ph1 + r;
+      if (!(s > 0) || s === Infinity) throw notPd(k, timesS[k]);
+      // K = P H' / S; v = z - H x
+      const k0 = ph0 / s, k1 = ph1 / s;
+      const v = zk - (h0 * x0 + h1 * x1);
+      const q = (v * v) / s;
+      nis[k] = q;
+      nisDof[k] = 1;
+      logLik -= 0.5 * (LOG_2PI + Math.log(s) + q);
+      nObs++;
+      a0 = x0 + k0 * v;
+      a1 = x1 + k1 * v;
+      // Joseph form: A = I - K H; P = A P A' + K R K'
+      const A00 = 1 - k0 * h0, A01 = -k0 * h1, A10 = -k1 * h0, A11 = 1 - k1 * h1;
+      const B00 = A00 * p00 + A01 * p01, B01 = A00 * p01 + A01 * p11;
+      const B10 = A10 * p00 + A11 * p01, B11 = A10 * p01 + A11 * p11;
+      c00 = B00 * A00 + B01 * A01 + k0 * r * k0;
+      c01 = 0.5 * ((B00 * A10 + B01 * A11 + k0 * r * k1) + (B10 * A00 + B11 * A01 + k1 * r * k0));
+      c11 = B10 * A10 + B11 * A11 + k1 * r * k1;
+    }
+    xFilt[xo] = a0; xFilt[xo + 1] = a1;
+    PFilt[po] = c00; PFilt[po + 1] = c01; PFilt[po + 2] = c01; PFilt[po + 3] = c11;
+  }
+  res.logLik = logLik;
+  res.nObserved = nObs;
+}
+
+/** Filter for n = 3, m = 1; fills `res` (already allocated and checked). */
+export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
+  const T = timesS.length;
+  const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;
+  const Fw = new Float64Array(9);
+  const uw = new Float64Array(3);
+  const Qw = new Float64Array(9);
+  const h0 = model.H[0], h1 = model.H[1], h2 = model.H[2], r = model.R[0];
+  let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
+  let u0 = 0, u1 = 0, u2 = 0;
+  let q00 = 0, q01 = 0, q02 = 0, q10 = 0, q11 = 0, q12 = 0, q20 = 0, q21 = 0, q22 = 0;
+  let a0 = 0, a1 = 0, a2 = 0;
+  let c00 = 0, c01 = 0, c02 = 0, c11 = 0, c12 = 0, c22 = 0;
+  let lastDt = NaN;
+  let logLik = 0;
+  let nObs = 0;
+  for (let k = 0; k < T; k++) {
+    let x0: number, x1: number, x2: number;
+    let p00: number, p01: number, p02: number, p11: number, p12: number, p22: number;
+    if (k === 0) {
+      const P0 = model.P0;
+      x0 = model.x0[0]; x1 = model.x0[1]; x2 = model.x0[2];
+      p00 = P0[0]; p11 = P0[4]; p22 = P0[8];
+      p01 = 0.5 * (P0[1] + P0[3]); p02 = 0.5 * (P0[2] + P0[6]); p12 = 0.5 * (P0[5] + P0[7]);
+    } else {
+      const dt = timesS[k] - timesS[k - 1];
+      if (dt !== lastDt) {
+        model.discretize(dt, Fw, uw, Qw);
+        f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
+        u0 = uw[0]; u1 = uw[1]; u2 = uw[2];
+        q00 = Qw[0]; q01 = Qw[1]; q02 = Qw[2]; q10 = Qw[3]; q11 = Qw[4]; q12 = Qw[5]; q20 = Qw[6]; q21 = Qw[7]; q22 = Qw[8];
+        lastDt = dt;
+      }
+      // x_k|k-1 = F x + u
+      x0 = u0 + f00 * a0 + f01 * a1 + f02 * a2;
+      x1 = u1 + f10 * a0 + f11 * a1 + f12 * a2;
+      x2 = u2 + f20 * a0 + f21 * a1 + f22 * a2;
+      // G = F C
+      const g00 = f00 * c00 + f01 * c01 + f02 * c02, g01 = f00 * c01 + f01 * c11 + f02 * c12, g02 = f00 * c02 + f01 * c12 + f02 * c22;
+      const g10 = f10 * c00 + f11 * c01 + f12 * c02, g11 = f10 * c01 + f11 * c11 + f12 * c12, g12 = f10 * c02 + f11 * c12 + f12 * c22;
+      const g20 = f20 * c00 + f21 * c01 + f22 * c02, g21 = f20 * c01 + f21 * c11 + f22 * c12, g22 = f20 * c02 + f21 * c12 + f22 * c22;
+      // P = G F' + Q (symmetrised)
+      p00 = g00 * f00 + g01 * f01 + g02 * f02 + q00;
+      p11 = g10 * f10 + g11 * f11 + g12 * f12 + q11;
+      p22 = g20 * f20 + g21 * f21 + g22 * f22 + q22;
+      p01 = 0.5 * ((g00 * f10 + g01 * f11 + g02 * f12 + q01) + (g10 * f00 + g11 * f01 + g12 * f02 + q10));
+      p02 = 0.5 * ((g00 * f20 + g01 * f21 + g02 * f22 + q02) + (g20 * f00 + g21 * f01 + g22 * f02 + q20));
+      p12 = 0.5 * ((g10 * f20 + g11 * f21 + g12 * f22 + q12) + (g20 * f10 + g21 * f11 + g22 * f12 + q21));
+    }
+    const xo = 3 * k, po = 9 * k;
+    xPred[xo] = x0; xPred[xo + 1] = x1; xPred[xo + 2] = x2;
+    PPred[po] = p00; PPred[po + 1] = p01; PPred[po + 2] = p02;
+    PPred[po + 3] = p01; PPred[po + 4] = p11; PPred[po + 5] = p12;
+    PPred[po + 6] = p02; PPred[po + 7] = p12; PPred[po + 8] = p22;
+    const zk = z[k];
+    if (zk !== zk) {
+      a0 = x0; a1 = x1; a2 = x2;
+      c00 = p00; c01 = p01; c02 = p02; c11 = p11; c12 = p12; c22 = p22;
+      nis[k] = NaN;
+      nisDof[k] = 0;
+    } else {
+      // P H', S = H P H' + R
+      const ph0 = p00 * h0 + p01 * h1 + p02 * h2;
+      const ph1 = p01 * h0 + p11 * h1 + p12 * h2;
+      const ph2 = p02 * h0 + p12 * h1 + p22 * h2;
+      const s = h0 * ph0 + h1 * ph1 + h2 * ph2 + r;
+      if (!(s > 0) || s === Infinity) throw notPd(k, timesS[k]);
+      const k0 = ph0 / s, k1 = ph1 / s, k2 = ph2 / s;
+      const v = zk - (h0 * x0 + h1 * x1 + h2 * x2);
+      const q = (v * v) / s;
+      nis[k] = q;
+      nisDof[k] = 1;
+      logLik -= 0.5 * (LOG_2PI + Math.log(s) + q);
+      nObs++;
+      a0 = x0 + k0 * v; a1 = x1 + k1 * v; a2 = x2 + k2 * v;
+      // Joseph form: A = I - K H; B = A P; P = B A' + K R K'
+      const A00 = 1 - k0 * h0, A01 = -k0 * h1, A02 = -k0 * h2;
+      const A10 = -k1 * h0, A11 = 1 - k1 * h1, A12 = -k1 * h2;
+      const A20 = -k2 * h0, A21 = -k2 * h1, A22 = 1 - k2 * h2;
+      const B00 = A00 * p00 + A01 * p01 + A02 * p02, B01 = A00 * p01 + A01 * p11 + A02 * p12, B02 = A00 * p02 + A01 * p12 + A02 * p22;
+      const B10 = A10 * p00 + A11 * p01 + A12 * p02, B11 = A10 * p01 + A11 * p11 + A12 * p12, B12 = A10 * p02 + A11 * p12 + A12 * p22;
+      const B20 = A20 * p00 + A21 * p01 + A22 * p02, B21 = A20 * p01 + A21 * p11 + A22 * p12, B22 = A20 * p02 + A21 * p12 + A22 * p22;
+      c00 = B00 * A00 + B01 * A01 + B02 * A02 + k0 * r * k0;
+      c11 = B10 * A10 + B11 * A11 + B12 * A12 + k1 * r * k1;
+      c22 = B20 * A20 + B21 * A21 + B22 * A22 + k2 * r * k2;
+      c01 = 0.5 * ((B00 * A10 + B01 * A11 + B02 * A12 + k0 * r * k1) + (B10 * A00 + B11 * A01 + B12 * A02 + k1 * r * k0));
+      c02 = 0.5 * ((B00 * A20 + B01 * A21 + B02 * A22 + k0 * r * k2) + (B20 * A00 + B21 * A01 + B22 * A02 + k2 * r * k0));
+      c12 = 0.5 * ((B10 * A20 + B11 * A21 + B12 * A22 + k1 * r * k2) + (B20 * A10 + B21 * A11 + B22 * A12 + k2 * r * k1));
+    }
+    xFilt[xo] = a0; xFilt[xo + 1] = a1; xFilt[xo + 2] = a2;
+    PFilt[po] = c00; PFilt[po + 1] = c01; PFilt[po + 2] = c02;
+    PFilt[po + 3] = c01; PFilt[po + 4] = c11; PFilt[po + 5] = c12;
+    PFilt[po + 6] = c02; PFilt[po + 7] = c12; PFilt[po + 8] = c22;
+  }
+  res.logLik = logLik;
+  res.nObserved = nObs;
+}

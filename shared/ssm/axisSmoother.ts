@@ -1,0 +1,166 @@
+/**
+ * Scalar-local RTS smoother kernels for n = 2 or 3 states (m = 1), used automatically by
+ * {@link rtsSmooth}. Same operations as the general dense code: smoother gain C = P_k|k F' P_k+1|k^-1
+ * by a Cholesky solve of P_k+1|k, smoothed covariance symmetrised, lag-one covariance P_k+1|T C'.
+ * Internal to `shared/ssm/`.
+ */
+import { NotPositiveDefiniteError } from '../errors';
+import type { StateSpaceModel } from './stateSpaceModel';
+import type { FilterResult } from './kalmanFilter';
+import type { SmoothResult } from './rtsSmooth';
+
+function notPd(k: number, t: number): NotPositiveDefiniteError {
+  return new NotPositiveDefiniteError(`rtsSmooth: predicted covariance is not positive definite at sample ${k} (t = ${t} s)`);
+}
+
+/** Smoother for n = 2; fills `out` (allocated by the caller). */
+export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
+  const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
+  const { xSmooth, PSmooth, PLag } = out;
+  const Fw = new Float64Array(4);
+  const uw = new Float64Array(2);
+  const Qw = new Float64Array(4);
+  let f00 = 0, f01 = 0, f10 = 0, f11 = 0;
+  let lastDt = NaN;
+  // Smoothed moments of step k+1 (s: mean, S: covariance).
+  const e = T - 1;
+  let s0 = xFilt[2 * e], s1 = xFilt[2 * e + 1];
+  let S00 = PFilt[4 * e], S01 = PFilt[4 * e + 1], S11 = PFilt[4 * e + 3];
+  xSmooth[2 * e] = s0; xSmooth[2 * e + 1] = s1;
+  PSmooth[4 * e] = S00; PSmooth[4 * e + 1] = S01; PSmooth[4 * e + 2] = S01; PSmooth[4 * e + 3] = S11;
+  for (let k = T - 2; k >= 0; k--) {
+    const dt = timesS[k + 1] - timesS[k];
+    if (dt !== lastDt) {
+      model.discretize(dt, Fw, uw, Qw);
+      f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
+      lastDt = dt;
+    }
+    const xo = 2 * k, po = 4 * k, x1 = xo + 2, p1 = po + 4;
+    const c00 = PFilt[po], c01 = PFilt[po + 1], c11 = PFilt[po + 3];
+    const p00 = PPred[p1], p01 = PPred[p1 + 1], p11 = PPred[p1 + 3];
+    // M = F P_k|k
+    const m00 = f00 * c00 + f01 * c01, m01 = f00 * c01 + f01 * c11;
+    const m10 = f10 * c00 + f11 * c01, m11 = f10 * c01 + f11 * c11;
+    // Cholesky of P_k+1|k
+    if (!(p00 > 0)) throw notPd(k + 1, timesS[k + 1]);
+    const l00 = Math.sqrt(p00);
+    const l10 = p01 / l00;
+    const d11 = p11 - l10 * l10;
+    if (!(d11 > 0)) throw notPd(k + 1, timesS[k + 1]);
+    const l11 = Math.sqrt(d11);
+    // C' = P_k+1|k^-1 M, column by column (forward then backward substitution)
+    let y0 = m00 / l00;
+    let y1 = (m10 - l10 * y0) / l11;
+    const t10 = y1 / l11;
+    const t00 = (y0 - l10 * t10) / l00;
+    y0 = m01 / l00;
+    y1 = (m11 - l10 * y0) / l11;
+    const t11 = y1 / l11;
+    const t01 = (y0 - l10 * t11) / l00;
+    // C = (C')'
+    const C00 = t00, C01 = t10, C10 = t01, C11 = t11;
+    // x_k|T = x_k|k + C (x_k+1|T - x_k+1|k)
+    const d0 = s0 - xPred[x1], d1 = s1 - xPred[x1 + 1];
+    const n0 = xFilt[xo] + C00 * d0 + C01 * d1;
+    const n1 = xFilt[xo + 1] + C10 * d0 + C11 * d1;
+    // P_k|T = P_k|k + C (P_k+1|T - P_k+1|k) C'
+    const D00 = S00 - p00, D01 = S01 - p01, D11 = S11 - p11;
+    const E00 = C00 * D00 + C01 * D01, E01 = C00 * D01 + C01 * D11;
+    const E10 = C10 * D00 + C11 * D01, E11 = C10 * D01 + C11 * D11;
+    const N00 = E00 * C00 + E01 * C01 + c00;
+    const N01 = 0.5 * ((E00 * C10 + E01 * C11 + c01) + (E10 * C00 + E11 * C01 + c01));
+    const N11 = E10 * C10 + E11 * C11 + c11;
+    // Cov(x_k+1, x_k | T) = P_k+1|T C'
+    PLag[p1] = S00 * C00 + S01 * C01;
+    PLag[p1 + 1] = S00 * C10 + S01 * C11;
+    PLag[p1 + 2] = S01 * C00 + S11 * C01;
+    PLag[p1 + 3] = S01 * C10 + S11 * C11;
+    s0 = n0; s1 = n1; S00 = N00; S01 = N01; S11 = N11;
+    xSmooth[xo] = s0; xSmooth[xo + 1] = s1;
+    PSmooth[po] = S00; PSmooth[po + 1] = S01; PSmooth[po + 2] = S01; PSmooth[po + 3] = S11;
+  }
+}
+
+/** Smoother for n = 3; fills `out` (allocated by the caller). */
+export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
+  const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
+  const { xSmooth, PSmooth, PLag } = out;
+  const Fw = new Float64Array(9);
+  const uw = new Float64Array(3);
+  const Qw = new Float64Array(9);
+  let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
+  let lastDt = NaN;
+  const e = T - 1;
+  let s0 = xFilt[3 * e], s1 = xFilt[3 * e + 1], s2 = xFilt[3 * e + 2];
+  let S00 = PFilt[9 * e], S01 = PFilt[9 * e + 1], S02 = PFilt[9 * e + 2];
+  let S11 = PFilt[9 * e + 4], S12 = PFilt[9 * e + 5], S22 = PFilt[9 * e + 8];
+  xSmooth.set(xFilt.subarray(3 * e, 3 * e + 3), 3 * e);
+  PSmooth.set(PFilt.subarray(9 * e, 9 * e + 9), 9 * e);
+  for (let k = T - 2; k >= 0; k--) {
+    const dt = timesS[k + 1] - timesS[k];
+    if (dt !== lastDt) {
+      model.discretize(dt, Fw, uw, Qw);
+      f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
+      lastDt = dt;
+    }
+    const xo = 3 * k, po = 9 * k, x1 = xo + 3, p1 = po + 9;
+    const c00 = PFilt[po], c01 = PFilt[po + 1], c02 = PFilt[po + 2];
+    const c11 = PFilt[po + 4], c12 = PFilt[po + 5], c22 = PFilt[po + 8];
+    const p00 = PPred[p1], p01 = PPred[p1 + 1], p02 = PPred[p1 + 2];
+    const p11 = PPred[p1 + 4], p12 = PPred[p1 + 5], p22 = PPred[p1 + 8];
+    // M = F P_k|k
+    const m00 = f00 * c00 + f01 * c01 + f02 * c02, m01 = f00 * c01 + f01 * c11 + f02 * c12, m02 = f00 * c02 + f01 * c12 + f02 * c22;
+    const m10 = f10 * c00 + f11 * c01 + f12 * c02, m11 = f10 * c01 + f11 * c11 + f12 * c12, m12 = f10 * c02 + f11 * c12 + f12 * c22;
+    const m20 = f20 * c00 + f21 * c01 + f22 * c02, m21 = f20 * c01 + f21 * c11 + f22 * c12, m22 = f20 * c02 + f21 * c12 + f22 * c22;
+    // Cholesky of P_k+1|k
+    if (!(p00 > 0)) throw notPd(k + 1, timesS[k + 1]);
+    const l00 = Math.sqrt(p00);
+    const l10 = p01 / l00, l20 = p02 / l00;
+    const d11 = p11 - l10 * l10;
+    if (!(d11 > 0)) throw notPd(k + 1, timesS[k + 1]);
+    const l11 = Math.sqrt(d11);
+    const l21 = (p12 - l20 * l10) / l11;
+    const d22 = p22 - l20 * l20 - l21 * l21;
+    if (!(d22 > 0)) throw notPd(k + 1, timesS[k + 1]);
+    const l22 = Math.sqrt(d22);
+    // C' = P_k+1|k^-1 M, column j gives row j of C
+    let y0 = m00 / l00, y1 = (m10 - l10 * y0) / l11, y2 = (m20 - l20 * y0 - l21 * y1) / l22;
+    const C02 = y2 / l22, C01 = (y1 - l21 * C02) / l11, C00 = (y0 - l10 * C01 - l20 * C02) / l00;
+    y0 = m01 / l00; y1 = (m11 - l10 * y0) / l11; y2 = (m21 - l20 * y0 - l21 * y1) / l22;
+    const C12 = y2 / l22, C11 = (y1 - l21 * C12) / l11, C10 = (y0 - l10 * C11 - l20 * C12) / l00;
+    y0 = m02 / l00; y1 = (m12 - l10 * y0) / l11; y2 = (m22 - l20 * y0 - l21 * y1) / l22;
+    const C22 = y2 / l22, C21 = (y1 - l21 * C22) / l11, C20 = (y0 - l10 * C21 - l20 * C22) / l00;
+    // x_k|T = x_k|k + C (x_k+1|T - x_k+1|k)
+    const d0 = s0 - xPred[x1], d1 = s1 - xPred[x1 + 1], d2 = s2 - xPred[x1 + 2];
+    const n0 = xFilt[xo] + C00 * d0 + C01 * d1 + C02 * d2;
+    const n1 = xFilt[xo + 1] + C10 * d0 + C11 * d1 + C12 * d2;
+    const n2 = xFilt[xo + 2] + C20 * d0 + C21 * d1 + C22 * d2;
+    // P_k|T = P_k|k + C (P_k+1|T - P_k+1|k) C'
+    const D00 = S00 - p00, D01 = S01 - p01, D02 = S02 - p02, D11 = S11 - p11, D12 = S12 - p12, D22 = S22 - p22;
+    const E00 = C00 * D00 + C01 * D01 + C02 * D02, E01 = C00 * D01 + C01 * D11 + C02 * D12, E02 = C00 * D02 + C01 * D12 + C02 * D22;
+    const E10 = C10 * D00 + C11 * D01 + C12 * D02, E11 = C10 * D01 + C11 * D11 + C12 * D12, E12 = C10 * D02 + C11 * D12 + C12 * D22;
+    const E20 = C20 * D00 + C21 * D01 + C22 * D02, E21 = C20 * D01 + C21 * D11 + C22 * D12, E22 = C20 * D02 + C21 * D12 + C22 * D22;
+    const N00 = E00 * C00 + E01 * C01 + E02 * C02 + c00;
+    const N11 = E10 * C10 + E11 * C11 + E12 * C12 + c11;
+    const N22 = E20 * C20 + E21 * C21 + E22 * C22 + c22;
+    const N01 = 0.5 * ((E00 * C10 + E01 * C11 + E02 * C12 + c01) + (E10 * C00 + E11 * C01 + E12 * C02 + c01));
+    const N02 = 0.5 * ((E00 * C20 + E01 * C21 + E02 * C22 + c02) + (E20 * C00 + E21 * C01 + E22 * C02 + c02));
+    const N12 = 0.5 * ((E10 * C20 + E11 * C21 + E12 * C22 + c12) + (E20 * C10 + E21 * C11 + E22 * C12 + c12));
+    // Cov(x_k+1, x_k | T) = P_k+1|T C'
+    PLag[p1] = S00 * C00 + S01 * C01 + S02 * C02;
+    PLag[p1 + 1] = S00 * C10 + S01 * C11 + S02 * C12;
+    PLag[p1 + 2] = S00 * C20 + S01 * C21 + S02 * C22;
+    PLag[p1 + 3] = S01 * C00 + S11 * C01 + S12 * C02;
+    PLag[p1 + 4] = S01 * C10 + S11 * C11 + S12 * C12;
+    PLag[p1 + 5] = S01 * C20 + S11 * C21 + S12 * C22;
+    PLag[p1 + 6] = S02 * C00 + S12 * C01 + S22 * C02;
+    PLag[p1 + 7] = S02 * C10 + S12 * C11 + S22 * C12;
+    PLag[p1 + 8] = S02 * C20 + S12 * C21 + S22 * C22;
+    s0 = n0; s1 = n1; s2 = n2;
+    S00 = N00; S01 = N01; S02 = N02; S11 = N11; S12 = N12; S22 = N22;
+    xSmooth[xo] = s0; xSmooth[xo + 1] = s1; xSmooth[xo + 2] = s2;
+    PSmooth[po] = S00; PSmooth[po + 1] = S01; PSmooth[po + 2] = S02;
+    PSmooth[po + 3] = S01; PSmooth[po + 4] = S11; PSmooth[po + 5] = S12;
+    PSmooth[po + 6] = S02; PSmooth[po + 7] = S12; PSmooth[po + 8] = S22;
+  }
+}

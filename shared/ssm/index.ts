@@ -1,0 +1,13 @@
+/**
+ * Public API of Forecatch's state-space engine: models, Kalman filter, RTS smoother, dynamics
+ * hypotheses.
+ */
+export type { StateSpaceModel, TimeInvariantModelSpec } from './stateSpaceModel';
+export { validateModel, timeInvariantModel, localLevelModel } from './stateSpaceModel';
+export type { FilterResult, KalmanFilterOptions } from './kalmanFilter';
+export { kalmanFilter } from './kalmanFilter';
+export type { SmoothResult, RtsSmoothOptions } from './rtsSmooth';
+export { rtsSmooth } from './rtsSmooth';
+export { whiteNoiseAccelerationQ, whiteJerkQ } from './processNoise';
+export type { HypothesisKind, HypothesisSpec, AxisModelOptions } from './hypotheses';
+export { STANDARD_GRAVITY_MPS2, makeAxisModel, axisStateLayout, parseUpAxis } from './hypotheses';
