@@ -1,0 +1,113 @@
+/**
+ * The EMG conditioning chain: offset removal, band-pass, optional mains notch, full-wave rectification and
+ * linear envelope (or moving RMS), over one channel.
+ */
+import { butterworthSos } from './butterworthSos';
+import { fillGaps } from './fillGaps';
+import { mainsNotchSos } from './iirNotch';
+import { movingRms } from './movingRms';
+import { sosFilt } from './sosFilt';
+import { sosFiltZi } from './sosFilt';
+import { defaultPadLength, sosFiltFilt } from './sosFiltFilt';
+import { validateConditioning, type EmgConditioningSettings } from './emgConditioningSettings';
+import type { Sos } from './zpkToSos';
+
+/** Output of {@link conditionEmg}. NaN where the input was not finite. */
+export interface ConditionedEmg {
+  /** Offset-removed, band-passed (and notched) signal, same units as the input. */
+  conditioned: Float64Array;
+  /** Linear envelope (or moving RMS) of the conditioned signal, same units. */
+  envelope: Float64Array;
+  /** Number of non-finite input samples (bridged by interpolation for filtering, NaN again in the outputs). */
+  nanCount: number;
+}
+
+/** The filters a settings object designs at a given sample rate (design errors surface here). */
+export interface ConditioningFilters {
+  bandPass: Sos | null;
+  notch: Sos | null;
+  envelope: Sos | null;
+  /** Minimum signal length (samples) the zero-phase filters need. */
+  minSamples: number;
+}
+
+/**
+ * Designs the filters of a conditioning chain for one sample rate.
+ * @param rateHz - sample rate, Hz
+ * @param settings - conditioning settings
+ * @returns the sections of each enabled filter
+ * @throws RangeError when a cutoff is at or above the Nyquist frequency (names cutoff, Nyquist and sample rate) or a setting is out of range
+ */
+export function designConditioningFilters(rateHz: number, settings: EmgConditioningSettings): ConditioningFilters {
+  validateConditioning(settings);
+  if (!(rateHz > 0) || !Number.isFinite(rateHz)) throw new RangeError(`conditionEmg: sample rate must be a positive number of Hz, got ${rateHz}`);
+  const passes = settings.zeroPhase && settings.correctCutoffForPasses ? 2 : 1;
+  const bp = settings.bandPass;
+  const bandPass = bp.enabled
+    ? butterworthSos(bp.order, [bp.lowHz, bp.highHz], rateHz, 'bandpass', { correctForPasses: passes })
+    : null;
+  const notch = settings.notch.enabled ? mainsNotchSos(settings.notch.mainsHz, settings.notch.harmonics, settings.notch.q, rateHz) : null;
+  const env = settings.envelope;
+  const envelope = env.kind === 'low-pass' ? butterworthSos(env.order, env.lowPassHz, rateHz, 'lowpass', { correctForPasses: passes }) : null;
+  let minSamples = 3;
+  if (settings.zeroPhase) {
+    for (const f of [bandPass, notch, envelope]) if (f) minSamples = Math.max(minSamples, defaultPadLength(f) + 1);
+  }
+  return { bandPass, notch, envelope, minSamples };
+}
+
+function applyFilter(sos: Sos, y: Float64Array, zeroPhase: boolean, work: Float64Array): void {
+  if (zeroPhase) sosFiltFilt(sos, y, { out: y, work });
+  else sosFilt(sos, y, sosFiltZi(sos).map((v) => v * y[0]), y);
+}
+
+/**
+ * Conditions one EMG channel: offset removal, band-pass, optional notch (all zero-phase by default),
+ * full-wave rectification and envelope. Non-finite samples are bridged by linear interpolation for the
+ * filters and set back to NaN in both outputs.
+ * @param signal - raw samples (any units)
+ * @param rateHz - sample rate, Hz
+ * @param settings - conditioning settings (see DEFAULT_EMG_CONDITIONING)
+ * @returns conditioned signal, envelope and the count of non-finite input samples
+ * @throws RangeError for an empty signal, a signal without a finite sample, a signal shorter than the
+ *   filters' padding, or a sample rate too low for the band (message names the numbers)
+ * @see Hermens H.J. et al. (2000) J Electromyogr Kinesiol 10:361-374 (SENIAM); Winter D.A. (2009) p. 69
+ */
+export function conditionEmg(signal: Float64Array | Float32Array, rateHz: number, settings: EmgConditioningSettings): ConditionedEmg {
+  const filters = designConditioningFilters(rateHz, settings);
+  const n = signal.length;
+  if (n === 0) throw new RangeError('conditionEmg: the signal is empty');
+  if (n < filters.minSamples) {
+    throw new RangeError(`conditionEmg: the signal has ${n} samples; the zero-phase filters need at least ${filters.minSamples}`);
+  }
+  const conditioned = Float64Array.from(signal);
+  const mask = new Uint8Array(n);
+  const nanCount = fillGaps(conditioned, mask);
+  if (nanCount === n) throw new RangeError(`conditionEmg: none of the ${n} samples is finite`);
+  if (settings.removeOffset) {
+    let sum = 0;
+    for (let i = 0; i < n; i++) sum += conditioned[i];
+    const mean = sum / n;
+    for (let i = 0; i < n; i++) conditioned[i] -= mean;
+  }
+  const work = new Float64Array(n + 2 * filters.minSamples);
+  if (filters.bandPass) applyFilter(filters.bandPass, conditioned, settings.zeroPhase, work);
+  if (filters.notch) applyFilter(filters.notch, conditioned, settings.zeroPhase, work);
+  let envelope: Float64Array;
+  if (filters.envelope) {
+    envelope = new Float64Array(n);
+    for (let i = 0; i < n; i++) envelope[i] = Math.abs(conditioned[i]);
+    applyFilter(filters.envelope, envelope, settings.zeroPhase, work);
+  } else {
+    envelope = movingRms(conditioned, 2 * Math.max(1, Math.round((settings.envelope.rmsWindowS * rateHz) / 2)) + 1);
+  }
+  if (nanCount > 0) {
+    for (let i = 0; i < n; i++) {
+      if (mask[i]) {
+        conditioned[i] = NaN;
+        envelope[i] = NaN;
+      }
+    }
+  }
+  return { conditioned, envelope, nanCount };
+}
