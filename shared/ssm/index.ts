@@ -11,3 +11,7 @@ export { rtsSmooth } from './rtsSmooth';
 export { whiteNoiseAccelerationQ, whiteJerkQ } from './processNoise';
 export type { HypothesisKind, HypothesisSpec, AxisModelOptions } from './hypotheses';
 export { STANDARD_GRAVITY_MPS2, makeAxisModel, axisStateLayout, parseUpAxis } from './hypotheses';
+export type { ArrivalInput, ArrivalPrediction, ArrivalStatus, TimeToContactInput, TimeToContact } from './arrival';
+export { predictArrival, timeToContact } from './arrival';
+export type { AxisKinematics } from './axisKinematics';
+export { axisKinematics } from './axisKinematics';
