@@ -1,0 +1,249 @@
+/**
+ * Streaming reader for delimited text (CSV, TSV, semicolon with decimal comma). Text arrives in chunks of
+ * any size through `push`; complete lines are parsed by papaparse batch by batch and each cell goes straight
+ * into a column of Float64Arrays, so a file of several hundred MB never exists as one string or as row objects.
+ */
+import Papa from 'papaparse';
+import { ParseError } from '../../errors';
+import type { ImportWarning, Recording } from '../../recording/types';
+import type { ImportTemplate } from '../importTemplate';
+import { ColumnStore } from './columnStore';
+import { planColumns, SLOT_MARKER, SLOT_TIME, type ColumnPlan } from './columnPlan';
+import { sniffDelimited, type DelimitedDialect } from './sniffDelimited';
+import { buildDelimitedRecording } from './buildDelimitedRecording';
+
+/** Options of {@link createDelimitedReader}. */
+export interface DelimitedReaderOptions {
+  /** Column mapping; without one the default layout applies. */
+  template?: ImportTemplate;
+  /**
+   * What a fault in the data (garbage cell, wrong cell count, time not increasing) does:
+   * `error` (default) throws a ParseError; `truncate` keeps the rows before the fault and adds a warning.
+   */
+  onFault?: 'error' | 'truncate';
+  /** Total size of the input in bytes, if known: used once to pre-allocate the columns. */
+  expectedBytes?: number;
+}
+
+/** An incremental delimited-text reader. */
+export interface DelimitedReader {
+  /** Feeds the next piece of text (any size, may end mid-line). */
+  push(chunk: string): void;
+  /** Ends the input and returns the recording. */
+  finish(): Recording;
+}
+
+const SNIFF_LINES = 64;
+const SNIFF_CHARS = 1 << 18;
+
+/**
+ * Creates a streaming reader for one delimited text file.
+ * @param fileName - name used in messages and as the recording's source
+ * @param opts - template, fault policy, expected size
+ * @returns a reader; `push` and `finish` throw ParseError naming file, line, column and what was expected
+ */
+export function createDelimitedReader(fileName: string, opts: DelimitedReaderOptions = {}): DelimitedReader {
+  const onFault = opts.onFault ?? 'error';
+  let pending = '';
+  let first = true;
+  let dialect: DelimitedDialect | null = null;
+  let plan: ColumnPlan | null = null;
+  let store: ColumnStore | null = null;
+  let newline = '\n';
+  let lineNo = 0;
+  let stopped = false;
+  let finished = false;
+  let reserved = false;
+  let prevT = -Infinity;
+  let timeDecimals = 0;
+  let missingSignal = 0;
+  let missingMarker = new Float64Array(0);
+  const warnings: ImportWarning[] = [];
+
+  const fault = (line: number, col: number, expected: string, found: string): void => {
+    const column = col >= 0 && plan ? plan.columnNames[col] ?? `#${col + 1}` : undefined;
+    if (onFault === 'truncate' && store && store.rows > 0) {
+      stopped = true;
+      const where = `line ${line}${column ? `, column ${column}` : ''}`;
+      warnings.push({ code: 'PARTIAL', message: `${fileName}: ${where}: expected ${expected}, found ${found}; kept the ${store.rows} rows before it` });
+      return;
+    }
+    throw new ParseError({ file: fileName, line, column }, expected, found);
+  };
+
+  const setup = (lines: string[]): void => {
+    dialect = sniffDelimited(lines, opts.template);
+    if (!dialect) {
+      throw new ParseError(
+        { file: fileName, line: 1 },
+        'delimited text (comma, semicolon or tab) with rows of numbers under at most a few header lines',
+        `"${(lines[0] ?? '').slice(0, 40)}"`,
+      );
+    }
+    plan = planColumns(fileName, dialect, opts.template);
+    warnings.push(...plan.warnings);
+    store = new ColumnStore(plan.srcCol.length);
+    missingMarker = new Float64Array(plan.markers.length);
+  };
+
+  const handleRows = (rows: string[][], batchChars: number): void => {
+    const p = plan!;
+    const s = store!;
+    const n = dialect!.columnCount;
+    const comma = dialect!.decimalComma;
+    const nSlots = p.srcCol.length;
+    if (!reserved && opts.expectedBytes && rows.length > 0) {
+      reserved = true;
+      const est = (opts.expectedBytes / Math.max(1, batchChars / rows.length)) * 1.05 + 16;
+      s.reserve(Math.min(est, opts.expectedBytes / 2));
+    }
+    for (let r = 0; r < rows.length && !stopped; r++) {
+      const cells = rows[r];
+      lineNo++;
+      if (cells.length !== n) {
+        if (cells.length === 1 && cells[0].trim() === '') continue;
+        fault(lineNo, -1, `${n} cells`, `${cells.length}`);
+        return;
+      }
+      const row = s.rows;
+      s.ensure(row + 1);
+      for (let k = 0; k < nSlots; k++) {
+        const col = p.srcCol[k];
+        const text = cells[col];
+        let v = text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text);
+        if (v !== v) {
+          const t = text.trim();
+          if (t !== '' && t !== 'NaN' && t.toLowerCase() !== 'nan') {
+            fault(lineNo, col, 'a number', `"${t.slice(0, 24)}"`);
+            return;
+          }
+        } else if (v === 0 && text.trim() === '') {
+          v = NaN;
+        } else if (v === Infinity || v === -Infinity) {
+          fault(lineNo, col, 'a finite number', `"${text.trim().slice(0, 24)}"`);
+          return;
+        }
+        v /= p.divisor[k];
+        if (p.kind[k] === SLOT_TIME) {
+          if (!(v > prevT)) {
+            fault(lineNo, col, v === v ? `a time stamp after ${prevT}` : 'a time stamp', `"${text.trim().slice(0, 24)}"`);
+            return;
+          }
+          prevT = v;
+          const dot = comma ? text.indexOf(',') : text.indexOf('.');
+          if (dot >= 0) {
+            const dec = /[eE]/.test(text) ? 17 : text.trimEnd().length - dot - 1;
+            if (dec > timeDecimals) timeDecimals = dec;
+          }
+        } else if (v !== v && p.kind[k] !== SLOT_MARKER) {
+          missingSignal++;
+        }
+        s.column(k)[row] = v;
+      }
+      for (let m = 0; m < p.markers.length; m++) {
+        const [a, b, c] = p.markers[m].slots;
+        const x = s.column(a)[row];
+        const y = s.column(b)[row];
+        const z = s.column(c)[row];
+        if (x !== x || y !== y || z !== z) {
+          s.column(a)[row] = NaN;
+          s.column(b)[row] = NaN;
+          s.column(c)[row] = NaN;
+          missingMarker[m]++;
+        }
+      }
+      s.rows = row + 1;
+    }
+  };
+
+  const parseLines = (text: string): string[][] =>
+    Papa.parse<string[]>(text, { delimiter: dialect!.delimiter, newline: '\n' as const }).data as string[][];
+
+  /** Cuts `pending` after its last line break outside quotes; returns the complete lines. */
+  const takeCompleteLines = (): string | null => {
+    let cut = pending.lastIndexOf('\n');
+    if (cut < 0) return null;
+    if (pending.indexOf('"') >= 0) {
+      let inQuote = false;
+      let lastOutside = -1;
+      for (let i = 0; i <= cut; i++) {
+        const ch = pending.charCodeAt(i);
+        if (ch === 34) inQuote = !inQuote;
+        else if (ch === 10 && !inQuote) lastOutside = i;
+      }
+      cut = lastOutside;
+      if (cut < 0) return null;
+    }
+    const text = pending.slice(0, cut);
+    pending = pending.slice(cut + 1);
+    return text;
+  };
+
+  const normalize = (chunk: string): string => {
+    if (first) {
+      first = false;
+      if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
+      if (chunk.indexOf('\n') < 0 && chunk.indexOf('\r') >= 0) newline = '\r';
+    }
+    if (newline === '\r') return chunk.replace(/\r/g, '\n');
+    return chunk.indexOf('\r') >= 0 ? chunk.replace(/\r\n?/g, '\n') : chunk;
+  };
+
+  const sniffIfReady = (force: boolean): void => {
+    if (dialect) return;
+    let count = 0;
+    let idx = -1;
+    while (count < SNIFF_LINES && (idx = pending.indexOf('\n', idx + 1)) >= 0) count++;
+    if (!force && count < SNIFF_LINES && pending.length < SNIFF_CHARS) return;
+    const sampleEnd = count >= SNIFF_LINES ? idx : force ? pending.length : pending.lastIndexOf('\n');
+    const lines = pending.slice(0, Math.max(0, sampleEnd)).split('\n');
+    setup(lines);
+    const skip = dialect!.dataIndex;
+    let pos = 0;
+    for (let i = 0; i < skip; i++) pos = pending.indexOf('\n', pos) + 1;
+    pending = pending.slice(pos);
+    lineNo = skip;
+  };
+
+  return {
+    push(chunk: string): void {
+      if (finished) throw new RangeError('push() after finish()');
+      if (stopped || chunk.length === 0) return;
+      pending += normalize(chunk);
+      sniffIfReady(false);
+      if (!dialect) return;
+      const text = takeCompleteLines();
+      if (text !== null) handleRows(parseLines(text), text.length);
+    },
+    finish(): Recording {
+      if (finished) throw new RangeError('finish() called twice');
+      finished = true;
+      if (!stopped) {
+        if (!dialect) sniffIfReady(true);
+        const text = takeCompleteLines();
+        if (text !== null) handleRows(parseLines(text), text.length);
+        if (!stopped && pending.trim().length > 0) {
+          const rows = parseLines(pending);
+          const last = rows[rows.length - 1];
+          if (rows.length === 1 && last.length < dialect!.columnCount && store!.rows > 0) {
+            warnings.push({
+              code: 'TRUNCATED_LAST_LINE',
+              message: `${fileName}: line ${lineNo + 1}: expected ${dialect!.columnCount} cells, found ${last.length} at the end of the file; kept the ${store!.rows} complete rows`,
+            });
+          } else handleRows(rows, pending.length);
+        }
+      }
+      pending = '';
+      return buildDelimitedRecording(fileName, {
+        dialect: dialect!,
+        plan: plan!,
+        store: store!,
+        lastLine: lineNo,
+        timeDecimals,
+        missingMarker,
+        missingSignal,
+        warnings,
+      });
+    },
+  };
+}
