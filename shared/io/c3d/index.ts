@@ -26,3 +26,5 @@ export {
   getC3dNumberList,
 } from './c3dParameterValues';
 export { vaxFloatToNumber, numberToVaxFloat } from './c3dNumbers';
+export { writeC3d, type WriteC3dOptions } from './writeC3d';
+export { C3dParameterSectionBuilder } from './c3dParameterSection';
