@@ -1,14 +1,14 @@
 /**
- * The EMG types the analysis settings and prepared trials refer to, in one place.
- *
- * These mirror contract D (shared/emg). Until that module lands they are declared structurally here;
- * afterwards this file re-exports the real ones, so `shared/analysis/types.ts` never changes.
+ * The EMG types the analysis settings and prepared trials refer to, in one place (contract D, shared/emg).
+ * Where shared/emg exports the real type it is re-exported under the name used here.
  */
+import { DEFAULT_EMG_CONDITIONING, type EmgConditioningSettings } from '../emg/emgConditioningSettings';
 
-/** EMG conditioning settings (band-pass, rectification, envelope low-pass); see shared/emg conditionEmg. */
-export interface EmgConditioningSettingsLike {
-  [key: string]: unknown;
-}
+/** EMG conditioning settings (band-pass, notch, rectification, envelope); shared/emg. */
+export type EmgConditioningSettingsLike = EmgConditioningSettings;
+
+/** Defaults of the conditioning chain (shared/emg DEFAULT_EMG_CONDITIONING). */
+export const DEFAULT_EMG_CONDITIONING_SETTINGS: EmgConditioningSettings = DEFAULT_EMG_CONDITIONING as EmgConditioningSettings;
 
 /** Onset detector settings; `method` names the published detector. See shared/emg detectOnset. */
 export interface OnsetSettingsLike {
@@ -16,13 +16,16 @@ export interface OnsetSettingsLike {
   [key: string]: unknown;
 }
 
+/** Default onset detector settings (placeholder until shared/emg exports DEFAULT_ONSET_SETTINGS). */
+export const DEFAULT_ONSET_DETECTION_SETTINGS: OnsetSettingsLike = { method: 'baseline-threshold' };
+
 /** Result of one automatic onset detection. See shared/emg detectOnset. */
 export interface OnsetResultLike {
   /** Onset time on the recording clock, s; null when none was found. */
   onsetS: number | null;
   /** Offset time on the recording clock, s; null when none was found. */
   offsetS: number | null;
-  /** Quality flags raised by the detector (strings, e.g. 'no-onset', 'saturated'). */
+  /** Quality flags raised by the detector (e.g. 'no-onset', 'saturated'). */
   flags: readonly string[];
   /** Detector name. */
   method: string;

@@ -273,6 +273,8 @@ export type TrialResult = TrialMuscleEvaluation;
 /** Per subject x condition x hypothesis descriptive statistics of ttc at onset. */
 export interface TtcSummary {
   subject: string;
+  /** Muscle whose onsets are analysed (each muscle is analysed separately). */
+  muscle: string;
   condition: string;
   hypothesis: string;
   n: number;
@@ -290,6 +292,8 @@ export interface TtcSummary {
  */
 export interface ModelComparisonRow {
   subject: string;
+  /** Muscle whose onsets are analysed (each muscle is analysed separately). */
+  muscle: string;
   condition: string;
   hypothesis: string;
   n: number;
@@ -316,6 +320,8 @@ export interface ModelComparisonRow {
 /** Profile of the threshold-model log-likelihood over internal gravity for one subject x condition. */
 export interface InternalGravityProfile {
   subject: string;
+  /** Muscle whose onsets are analysed (each muscle is analysed separately). */
+  muscle: string;
   condition: string;
   /** Grid of internal gravity magnitudes, m/s^2. */
   gMps2: Float64Array;
@@ -332,6 +338,8 @@ export interface InternalGravityProfile {
 /** Bayesian observer: fitted prior width per subject and effective prior weight per condition. */
 export interface PriorWidthFit {
   subject: string;
+  /** Muscle whose onsets are analysed (each muscle is analysed separately). */
+  muscle: string;
   hypothesis: string;
   /** Grid of prior widths sigma_prior, m/s^2 (log spaced). */
   sigmaMps2: Float64Array;
@@ -347,6 +355,8 @@ export interface PriorWidthFit {
 /** How the comparison changes with the visuomotor delay (cutoff = onset - delay). */
 export interface DelaySensitivity {
   subject: string;
+  /** Muscle whose onsets are analysed (each muscle is analysed separately). */
+  muscle: string;
   /** Delays tried, ms. */
   delaysMs: Float64Array;
   /** Hypothesis ids, in settings order. */

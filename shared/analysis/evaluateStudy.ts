@@ -1,0 +1,222 @@
+import type {
+  DelaySensitivity,
+  FailedTrial,
+  HypothesisEvaluation,
+  ModelComparisonRow,
+  OnsetJournalLike,
+  PreparedTrial,
+  StudyEvaluation,
+  StudySettings,
+  TrialMuscleEvaluation,
+  TtcSummary,
+} from './types';
+import { buildCutoffRows, fillCutoffStates, type CutoffRows } from './cutoffRows';
+import { computeTtcMatrix, type TtcMatrix } from './ttcMatrix';
+import { hypothesisAcceleration } from './hypothesisTtc';
+import { arrivalWithSd } from './arrivalWithSd';
+import { summarizeTtc } from './summarizeTtc';
+import { compareGroup } from './compareModels';
+import { gravityGrid, internalGravityProfiles, ttcOverGravityGrid } from './internalGravity';
+import { ALL } from './groups';
+import { stableHash } from './stableHash';
+import { FORECATCH_VERSION } from '../version';
+
+/** Options of {@link evaluateStudy}. */
+export interface EvaluateStudyOptions {
+  /** Trials that could not be prepared, carried into the result for reports. */
+  failed?: FailedTrial[];
+  /** Skip the delay sweep (the desktop app may compute it lazily). Default false. */
+  skipDelaySweep?: boolean;
+}
+
+/** Number of free parameters per stratum of each hypothesis' threshold model. */
+function paramsPerStratum(settings: StudySettings): number[] {
+  return settings.hypotheses.map((h) => (h.kind === 'bayesian-observer' ? 3 : 2));
+}
+
+/**
+ * The cheap evaluation of a study from cached prepared trials: per trial x muscle x hypothesis the state
+ * at the information cutoff, predicted arrival (+SD), ttc at onset and prediction error (journal edits
+ * applied), then per subject x condition x muscle x hypothesis statistics, model comparison with bootstrap
+ * intervals, internal gravity profiles, the Bayesian observer's prior widths and the delay sensitivity.
+ * Closed form throughout; nothing here re-reads or re-smooths a recording.
+ *
+ * @param prepared - prepared trials (from prepareTrial)
+ * @param settings - study settings
+ * @param journal - onset edit journal (use `{ edits: [], cursor: 0 }` for none)
+ * @param options - failed trials to carry along; skip the delay sweep
+ * @returns the study evaluation
+ */
+export function evaluateStudy(
+  prepared: readonly PreparedTrial[],
+  settings: StudySettings,
+  journal: OnsetJournalLike,
+  options: EvaluateStudyOptions = {},
+): StudyEvaluation {
+  const muscles = settings.emgChannels.map((c) => c.muscle);
+  const hyps = settings.hypotheses;
+  const rows = buildCutoffRows(prepared, settings, journal);
+  fillCutoffStates(rows, prepared, settings.stateSource, settings.cutoff);
+  const moves = settings.cutoff.kind !== 'after-release';
+  const mat = computeTtcMatrix(rows, prepared, settings, moves);
+  const trials = trialEvaluations(rows, mat, prepared, settings);
+
+  const durationS = new Float64Array(rows.n);
+  for (let r = 0; r < rows.n; r++) durationS[r] = prepared[rows.trialIndex[r]].motionDurationS;
+
+  const summaries: TtcSummary[] = [];
+  for (const g of mat.groups) for (let h = 0; h < hyps.length; h++) summaries.push(summarizeTtc(g, hyps[h].id, mat.ttcByHyp[h], durationS));
+
+  const grid = gravityGrid(settings.gravityGrid.points, settings.gravityGrid.maxG);
+  const internalGravity = internalGravityProfiles(mat.groups, ttcOverGravityGrid(rows, prepared, grid, moves), grid);
+
+  const k = paramsPerStratum(settings);
+  const models: ModelComparisonRow[] = [];
+  mat.groups.forEach((g, gi) => {
+    const cmp = compareGroup(g, mat.ttcByHyp, mat.jacByHyp, k, settings.bootstrap.replicates, settings.bootstrap.seed + gi);
+    const ig = internalGravity[gi];
+    for (let h = 0; h < hyps.length; h++) {
+      const s = summaries[gi * hyps.length + h];
+      models.push({
+        subject: g.subject,
+        condition: g.condition,
+        muscle: g.muscle,
+        hypothesis: hyps[h].id,
+        n: cmp.n,
+        ttcMeanMs: s.ttcMeanMs,
+        ttcSdMs: s.ttcSdMs,
+        logLik: cmp.logLik[h],
+        k: cmp.k[h],
+        aic: cmp.aic[h],
+        bic: cmp.bic[h],
+        posterior: cmp.posterior[h],
+        dLogLik: cmp.dLogLik[h],
+        dLogLikLo: cmp.dLo[h],
+        dLogLikHi: cmp.dHi[h],
+        internalGMps2: ig.bestGMps2,
+        internalGLoMps2: ig.loMps2,
+        internalGHiMps2: ig.hiMps2,
+      });
+    }
+  });
+
+  const delaySensitivity = options.skipDelaySweep ? [] : sweepDelays(rows, prepared, settings);
+  const flags: StudyEvaluation['flags'] = [];
+  for (const p of prepared) for (const f of p.flags) flags.push({ trialId: p.trial.id, flag: f });
+  return {
+    version: FORECATCH_VERSION,
+    settingsHash: stableHash(settings),
+    hypotheses: hyps.map((h) => h.id),
+    trials,
+    summaries,
+    models,
+    internalGravity,
+    priorWidth: mat.priorFits,
+    delaySensitivity,
+    failed: options.failed ?? [],
+    flags,
+  };
+}
+
+const acc3 = new Float64Array(3);
+const cov9 = new Float64Array(9);
+const tsd = new Float64Array(2);
+
+/** Per trial x muscle rows with every hypothesis' evaluation (objects for tables and views). */
+function trialEvaluations(rows: CutoffRows, mat: TtcMatrix, prepared: readonly PreparedTrial[], settings: StudySettings): TrialMuscleEvaluation[] {
+  const muscles = settings.emgChannels.map((c) => c.muscle);
+  const out: TrialMuscleEvaluation[] = [];
+  for (let r = 0; r < rows.n; r++) {
+    const p = prepared[rows.trialIndex[r]];
+    const t = p.trial;
+    const hypotheses: HypothesisEvaluation[] = settings.hypotheses.map((h, hi) => {
+      const base = rows.base[r] === 1;
+      const sigma = mat.sigmaByHyp[hi];
+      hypothesisAcceleration(h, rows, r, p, sigma ? sigma[r] : 1, acc3);
+      let predicted = NaN;
+      let sdMs = NaN;
+      if (base) {
+        cov9.set(rows.cov.subarray(r * 9, r * 9 + 9));
+        if (h.kind !== 'free-acceleration') {
+          // acceleration fixed or estimated independently of (p, v): its row and column replaced
+          cov9[2] = cov9[5] = cov9[6] = cov9[7] = 0;
+          cov9[8] = acc3[1];
+        }
+        arrivalWithSd(rows.state[r * 3], rows.state[r * 3 + 1], acc3[0], rows.targetM[r], cov9, tsd);
+        predicted = rows.onsetS[r] + mat.ttcByHyp[hi][r];
+        sdMs = tsd[1] * 1000;
+      }
+      return {
+        hypothesis: h.id,
+        cutoffS: rows.cutoffS[r],
+        stateHeightM: rows.state[r * 3],
+        stateVelMps: rows.state[r * 3 + 1],
+        accUsedMps2: base ? acc3[0] : NaN,
+        targetHeightM: rows.targetM[r],
+        predictedContactS: predicted,
+        predictedContactSdMs: sdMs,
+        ttcMs: mat.ttcByHyp[hi][r] * 1000,
+        predictionErrorMs: (predicted - rows.contactS[r]) * 1000,
+        priorWeight: h.kind === 'bayesian-observer' ? acc3[2] : undefined,
+      };
+    });
+    out.push({
+      trialId: t.id,
+      subject: t.subject,
+      condition: t.condition,
+      muscle: muscles[rows.muscleIndex[r]],
+      releaseS: p.releaseS,
+      onsetS: Number.isFinite(rows.onsetS[r]) ? rows.onsetS[r] : null,
+      automaticOnsetS: Number.isFinite(rows.automaticOnsetS[r]) ? rows.automaticOnsetS[r] : null,
+      onsetEdited: rows.onsetEdited[r] === 1,
+      onsetInvalid: rows.onsetInvalid[r] === 1,
+      contactS: p.contactS,
+      motionDurationS: p.motionDurationS,
+      excluded: t.excluded,
+      excludeReason: t.excludeReason,
+      usable: mat.usable[r] === 1,
+      covariates: t.covariates,
+      hypotheses,
+    });
+  }
+  return out;
+}
+
+/**
+ * Delay sensitivity: the comparison (condition `all`) recomputed with cutoff = onset - delay for every
+ * delay of the sweep, per subject x muscle and pooled.
+ */
+function sweepDelays(rows: CutoffRows, prepared: readonly PreparedTrial[], settings: StudySettings): DelaySensitivity[] {
+  const hyps = settings.hypotheses;
+  const H = hyps.length;
+  const delays = Float64Array.from(settings.delaySweepMs);
+  const D = delays.length;
+  const k = paramsPerStratum(settings);
+  const bySubject = new Map<string, DelaySensitivity>();
+  for (let d = 0; d < D; d++) {
+    fillCutoffStates(rows, prepared, settings.stateSource, { kind: 'onset-minus-delay', delayMs: delays[d] });
+    const mat = computeTtcMatrix(rows, prepared, settings, true);
+    for (const g of mat.groups) {
+      if (g.condition !== ALL) continue;
+      const key = `${g.subject}\u0000${g.muscle}`;
+      let ds = bySubject.get(key);
+      if (!ds) {
+        ds = {
+          subject: g.subject,
+          muscle: g.muscle,
+          delaysMs: delays,
+          hypotheses: hyps.map((h) => h.id),
+          posterior: new Float64Array(D * H).fill(NaN),
+          logLik: new Float64Array(D * H).fill(NaN),
+        };
+        bySubject.set(key, ds);
+      }
+      const cmp = compareGroup(g, mat.ttcByHyp, mat.jacByHyp, k, 0, 0);
+      for (let h = 0; h < H; h++) {
+        ds.posterior[d * H + h] = cmp.posterior[h];
+        ds.logLik[d * H + h] = cmp.logLik[h];
+      }
+    }
+  }
+  return [...bySubject.values()];
+}
