@@ -1,0 +1,83 @@
+/**
+ * A plotly.js chart as a React component: draws with Plotly.react on every change of data or layout,
+ * follows the theme, resizes with its box, and forwards clicks and zoom/drag (relayout) events.
+ */
+import { useEffect, useRef } from 'react';
+import Plotly, { type Config, type Layout, type PlotData, type PlotlyHTMLElement } from 'plotly.js-dist-min';
+import { THEMES, type ThemeName } from './palette';
+
+export interface PlotProps {
+  data: PlotData[];
+  layout: Layout;
+  theme: ThemeName;
+  /** Extra config (e.g. `edits: { shapePosition: true }` for draggable onset lines). */
+  config?: Config;
+  className?: string;
+  /** Accessible name of the figure. */
+  label: string;
+  /** Stable id used by figure export and the tests. */
+  plotId: string;
+  onClick?: (points: { curveNumber: number; pointIndex: number; customdata?: unknown; x: unknown; y: unknown }[]) => void;
+  onRelayout?: (update: Record<string, unknown>, el: PlotlyHTMLElement) => void;
+  /** Called after each draw (used to time repaints). */
+  onDrawn?: (el: PlotlyHTMLElement) => void;
+}
+
+/** Applies the theme's neutral colours to a layout (axes included). */
+export function themedLayout(layout: Layout, theme: ThemeName): Layout {
+  const c = THEMES[theme];
+  const out: Layout = {
+    ...layout,
+    paper_bgcolor: c.paper,
+    plot_bgcolor: c.plot,
+    font: { family: 'system-ui, sans-serif', size: 12, color: c.text, ...(layout.font as object) },
+  };
+  for (const key of Object.keys(layout)) {
+    if (/^[xy]axis\d*$/.test(key)) out[key] = { gridcolor: c.grid, zerolinecolor: c.grid, linecolor: c.muted, ...(layout[key] as object) };
+  }
+  return out;
+}
+
+export function Plot(props: PlotProps) {
+  const ref = useRef<HTMLDivElement>(null);
+  const handlers = useRef(props);
+  handlers.current = props;
+
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const ro = new ResizeObserver(() => {
+      if ((el as unknown as PlotlyHTMLElement).layout) Plotly.Plots.resize(el);
+    });
+    ro.observe(el);
+    return () => {
+      ro.disconnect();
+      Plotly.purge(el);
+    };
+  }, []);
+
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    let cancelled = false;
+    void Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
+      displaylogo: false,
+      responsive: false,
+      modeBarButtonsToRemove: ['sendDataToCloud', 'lasso2d', 'select2d'],
+      toImageButtonOptions: { filename: props.plotId },
+      ...props.config,
+    }).then((gd) => {
+      if (cancelled) return;
+      gd.removeAllListeners('plotly_click');
+      gd.removeAllListeners('plotly_relayout');
+      gd.on('plotly_click', (ev: { points: any[] }) => handlers.current.onClick?.(ev.points));
+      gd.on('plotly_relayout', (ev: Record<string, unknown>) => handlers.current.onRelayout?.(ev, gd));
+      handlers.current.onDrawn?.(gd);
+    });
+    return () => {
+      cancelled = true;
+    };
+  }, [props.data, props.layout, props.theme, props.config]);
+
+  return <div ref={ref} className={props.className ?? 'plot'} role="img" aria-label={props.label} data-plot-id={props.plotId} />;
+}

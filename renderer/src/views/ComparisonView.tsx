@@ -1,0 +1,245 @@
+/**
+ * Hypothesis comparison: time-to-contact at onset per hypothesis against motion duration or condition
+ * (one point per trial; a click opens the trial), the model-comparison table with posterior probabilities
+ * and bootstrap intervals, the internal-gravity profile with its interval, and the delay sensitivity.
+ */
+import { useMemo, useState } from 'react';
+import type { PlotData, Layout } from 'plotly.js-dist-min';
+import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/types';
+import { Plot } from '../plot/Plot';
+import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, type ThemeName } from '../plot/palette';
+import { fmtMs } from './trialRows';
+
+export interface ComparisonViewProps {
+  evaluation: StudyEvaluation;
+  settings: StudySettings;
+  theme: ThemeName;
+  onOpenTrial: (trialId: string) => void;
+  /** Called after the scatter has been drawn for an evaluation (times repaints). */
+  onPainted?: () => void;
+}
+
+const G0 = 9.80665;
+
+export function ComparisonView(props: ComparisonViewProps) {
+  const { evaluation, settings, theme } = props;
+  const muscles = settings.emgChannels.map((c) => c.muscle);
+  const [muscle, setMuscle] = useState(muscles[0] ?? '');
+  const [xKind, setXKind] = useState<'duration' | 'condition'>('duration');
+  const subjects = useMemo(() => [...new Set(evaluation.trials.map((t) => t.subject))], [evaluation.trials]);
+  const [subject, setSubject] = useState('all');
+  const labels = useMemo(() => Object.fromEntries(settings.hypotheses.map((h) => [h.id, h.label ?? h.id])), [settings.hypotheses]);
+  const c = THEMES[theme];
+
+  const scatter = useMemo(() => {
+    const rows = evaluation.trials.filter((t) => t.muscle === muscle && t.usable && (subject === 'all' || t.subject === subject));
+    const conditions = [...new Set(rows.map((r) => r.condition))].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
+    const data: PlotData[] = evaluation.hypotheses.map((hid, k) => {
+      const x: (number | string)[] = [];
+      const y: number[] = [];
+      const ids: string[] = [];
+      for (const r of rows) {
+        const h = r.hypotheses.find((e) => e.hypothesis === hid);
+        if (!h || !Number.isFinite(h.ttcMs)) continue;
+        x.push(xKind === 'duration' ? r.motionDurationS : r.condition);
+        y.push(h.ttcMs);
+        ids.push(r.trialId);
+      }
+      return {
+        type: 'scatter',
+        mode: 'markers',
+        name: labels[hid] ?? hid,
+        x,
+        y,
+        customdata: ids,
+        marker: { color: hypothesisColour(k), symbol: HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length], size: 7, opacity: 0.8 },
+        hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${labels[hid] ?? hid}</extra>`,
+        ...(xKind === 'condition' ? { offsetgroup: hid } : {}),
+      };
+    });
+    const layout: Layout = {
+      height: 420,
+      margin: { l: 70, r: 20, t: 30, b: 50 },
+      legend: { orientation: 'h', y: 1.02, yanchor: 'bottom' },
+      hovermode: 'closest',
+      xaxis: xKind === 'duration' ? { title: { text: 'motion duration, release to contact (s)' } } : { title: { text: 'condition' }, type: 'category', categoryarray: conditions },
+      yaxis: { title: { text: 'time-to-contact at onset (ms)' } },
+      ...(xKind === 'condition' ? { scattermode: 'group' } : {}),
+    };
+    return { data, layout };
+  }, [evaluation, muscle, subject, xKind, labels]);
+
+  const models = useMemo(() => evaluation.models.filter((m) => m.muscle === muscle && (subject === 'all' || m.subject === subject)), [evaluation.models, muscle, subject]);
+  const groups = useMemo(() => {
+    const map = new Map<string, typeof models>();
+    for (const m of models) {
+      const key = `${m.subject} · ${m.condition}`;
+      map.set(key, [...(map.get(key) ?? []), m]);
+    }
+    return [...map.entries()];
+  }, [models]);
+
+  const profiles = useMemo(() => evaluation.internalGravity.filter((p) => p.muscle === muscle && (subject === 'all' || p.subject === subject)), [evaluation.internalGravity, muscle, subject]);
+  const gravityFigure = useMemo(() => {
+    const data: PlotData[] = [];
+    const summary: PlotData = { type: 'scatter', mode: 'markers', x: [], y: [], error_x: { type: 'data', symmetric: false, array: [], arrayminus: [], color: c.text, thickness: 1.2 }, marker: { color: c.text, size: 8 }, name: 'internal gravity (95% interval)', hovertemplate: '%{y}<br>%{x:.2f} m/s²<extra></extra>' };
+    for (const p of profiles) {
+      if (!Number.isFinite(p.bestGMps2)) continue;
+      (summary.x as number[]).push(p.bestGMps2);
+      (summary.y as string[]).push(`${p.subject} · ${p.condition} (n=${p.n})`);
+      ((summary.error_x as { array: number[] }).array).push(p.hiMps2 - p.bestGMps2);
+      ((summary.error_x as { arrayminus: number[] }).arrayminus).push(p.bestGMps2 - p.loMps2);
+    }
+    data.push(summary);
+    const layout: Layout = {
+      height: Math.max(260, 60 + 26 * (summary.y as string[]).length),
+      margin: { l: 150, r: 20, t: 20, b: 50 },
+      showlegend: false,
+      xaxis: { title: { text: 'internal gravity (m/s²)' }, rangemode: 'tozero' },
+      yaxis: { type: 'category', automargin: true },
+      shapes: [{ type: 'line', xref: 'x', yref: 'paper', x0: G0, x1: G0, y0: 0, y1: 1, line: { color: c.muted, dash: 'dot', width: 1 } }],
+      annotations: [{ x: G0, y: 1, xref: 'x', yref: 'paper', text: '1 g', showarrow: false, yanchor: 'bottom', font: { size: 10, color: c.muted } }],
+    };
+    return { data, layout };
+  }, [profiles, c]);
+
+  const profileCurves = useMemo(() => {
+    const data: PlotData[] = profiles.slice(0, 8).map((p, i) => {
+      const max = Math.max(...Array.from(p.logLik).filter(Number.isFinite));
+      return { type: 'scatter', mode: 'lines', x: Array.from(p.gMps2), y: Array.from(p.logLik, (v) => v - max), name: `${p.subject} · ${p.condition}`, line: { color: hypothesisColour(i), dash: HYPOTHESIS_DASHES[i % HYPOTHESIS_DASHES.length] } };
+    });
+    const layout: Layout = {
+      height: 300,
+      margin: { l: 70, r: 20, t: 20, b: 50 },
+      xaxis: { title: { text: 'internal gravity (m/s²)' } },
+      yaxis: { title: { text: 'profile log-likelihood − max' }, range: [-8, 0.5] },
+      shapes: [{ type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: -1.92, y1: -1.92, line: { color: c.muted, dash: 'dot', width: 1 } }],
+      annotations: [{ x: 1, y: -1.92, xref: 'paper', yref: 'y', text: '95% (−1.92)', showarrow: false, xanchor: 'right', yanchor: 'bottom', font: { size: 10, color: c.muted } }],
+    };
+    return { data, layout };
+  }, [profiles, c]);
+
+  const delay = useMemo(() => {
+    const list = evaluation.delaySensitivity.filter((d) => d.muscle === muscle);
+    const pick = list.find((d) => d.subject === subject) ?? list[0];
+    if (!pick) return null;
+    const nd = pick.delaysMs.length;
+    const data: PlotData[] = pick.hypotheses.map((hid, k) => ({
+      type: 'scatter',
+      mode: 'lines+markers',
+      name: labels[hid] ?? hid,
+      x: Array.from(pick.delaysMs),
+      y: Array.from({ length: nd }, (_, i) => pick.posterior[i * pick.hypotheses.length + k]),
+      line: { color: hypothesisColour(settings.hypotheses.findIndex((h) => h.id === hid)), dash: HYPOTHESIS_DASHES[k % HYPOTHESIS_DASHES.length] },
+      marker: { symbol: HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length] },
+    }));
+    const layout: Layout = {
+      height: 300,
+      margin: { l: 70, r: 20, t: 20, b: 50 },
+      legend: { orientation: 'h', y: 1.02, yanchor: 'bottom' },
+      xaxis: { title: { text: 'visuomotor delay (ms)' } },
+      yaxis: { title: { text: 'posterior probability' }, range: [0, 1.02] },
+    };
+    return { data, layout, subject: pick.subject };
+  }, [evaluation.delaySensitivity, muscle, subject, labels, settings.hypotheses]);
+
+  return (
+    <section className="view comparison" aria-label="Hypothesis comparison">
+      <div className="toolbar">
+        <label>
+          Muscle{' '}
+          <select value={muscle} onChange={(e) => setMuscle(e.target.value)} aria-label="Muscle">
+            {muscles.map((m) => (
+              <option key={m}>{m}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Subject{' '}
+          <select value={subject} onChange={(e) => setSubject(e.target.value)} aria-label="Subject">
+            <option value="all">all</option>
+            {subjects.map((s) => (
+              <option key={s}>{s}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Against{' '}
+          <select value={xKind} onChange={(e) => setXKind(e.target.value as 'duration' | 'condition')} aria-label="Horizontal axis">
+            <option value="duration">motion duration</option>
+            <option value="condition">condition</option>
+          </select>
+        </label>
+        <span className="muted">A constant time-to-contact at onset under the right hypothesis shows as a flat cloud. Click a point to open its trial.</span>
+      </div>
+      <Plot
+        plotId="ttc-at-onset"
+        label="Time-to-contact at onset per hypothesis"
+        data={scatter.data}
+        layout={scatter.layout}
+        theme={theme}
+        onClick={(points) => {
+          const id = points[0]?.customdata;
+          if (typeof id === 'string') props.onOpenTrial(id);
+        }}
+        onDrawn={props.onPainted}
+      />
+      <h3>Model comparison ({muscle})</h3>
+      <div className="table-wrap">
+        <table className="models" aria-label="Model comparison">
+          <thead>
+            <tr>
+              <th scope="col">Subject · condition</th>
+              {evaluation.hypotheses.map((h, k) => (
+                <th scope="col" key={h}>
+                  <span className="swatch" style={{ background: hypothesisColour(k) }} />
+                  {labels[h] ?? h}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {groups.map(([key, rows]) => {
+              const best = Math.max(...rows.map((r) => r.posterior).filter(Number.isFinite));
+              return (
+                <tr key={key}>
+                  <th scope="row">
+                    {key} <span className="muted">(n={rows[0]?.n ?? 0})</span>
+                  </th>
+                  {evaluation.hypotheses.map((h) => {
+                    const r = rows.find((x) => x.hypothesis === h);
+                    if (!r) return <td key={h}>—</td>;
+                    return (
+                      <td key={h} className={`num ${r.posterior === best ? 'best' : ''}`} data-hypothesis={h} title={`log-likelihood ${r.logLik.toFixed(2)}, AIC ${r.aic.toFixed(1)}, BIC ${r.bic.toFixed(1)}`}>
+                        <span className="posterior">P = {r.posterior.toFixed(3)}</span>
+                        <br />
+                        <span className="muted">
+                          ΔlogL {r.dLogLik.toFixed(2)} [{r.dLogLikLo.toFixed(2)}, {r.dLogLikHi.toFixed(2)}]
+                        </span>
+                        <br />
+                        <span className="muted">
+                          ttc {fmtMs(r.ttcMeanMs)} ± {fmtMs(r.ttcSdMs)} ms
+                        </span>
+                      </td>
+                    );
+                  })}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <div className="two-col">
+        <div>
+          <h3>Internal gravity (maximum likelihood, 95% interval)</h3>
+          <Plot plotId="internal-gravity" label="Internal gravity per subject and condition" data={gravityFigure.data} layout={gravityFigure.layout} theme={theme} />
+          <Plot plotId="internal-gravity-profile" label="Profile likelihood of internal gravity" data={profileCurves.data} layout={profileCurves.layout} theme={theme} />
+        </div>
+        <div>
+          <h3>Delay sensitivity{delay ? ` (${delay.subject})` : ''}</h3>
+          {delay ? <Plot plotId="delay-sensitivity" label="Posterior probability against visuomotor delay" data={delay.data} layout={delay.layout} theme={theme} /> : <p className="muted">No delay sweep in this evaluation.</p>}
+        </div>
+      </div>
+    </section>
+  );
+}
