@@ -15,3 +15,7 @@ export type { ArrivalInput, ArrivalPrediction, ArrivalStatus, TimeToContactInput
 export { predictArrival, timeToContact } from './arrival';
 export type { AxisKinematics } from './axisKinematics';
 export { axisKinematics } from './axisKinematics';
+export type { AxisWorkspace } from './filterSmoothAxis';
+export { createAxisWorkspace, filterSmoothAxis } from './filterSmoothAxis';
+export type { NoiseModelBuilder, NoiseFitOptions, NoiseFit } from './estimateNoise';
+export { fitNoiseEm, fitNoiseMle } from './estimateNoise';

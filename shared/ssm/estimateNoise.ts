@@ -1,0 +1,318 @@
+/**
+ * Maximum-likelihood estimation of the measurement-noise variance R and the process-noise intensity q
+ * of a per-axis model whose process noise has a known shape, Q_k = q Qs(dt_k):
+ * by EM (Shumway & Stoffer 1982) or by direct maximisation of the Kalman-filter likelihood.
+ */
+import { DimensionMismatchError } from '../errors';
+import type { StateSpaceModel } from './stateSpaceModel';
+import { checkFilterInputs } from './filterInputs';
+import { createAxisWorkspace, filterSmoothAxis, type AxisWorkspace } from './filterSmoothAxis';
+import { kalmanFilter } from './kalmanFilter';
+import { choleskyLower, choleskySolveInPlace } from './denseLinalg';
+
+/**
+ * Builds the model for given noise levels. Its Q must be linear in `qIntensity` (Q = q Qs(dt)), as
+ * for every model of `makeAxisModel`; `m` must be 1.
+ */
+export type NoiseModelBuilder = (qIntensity: number, measurementVar: number) => StateSpaceModel;
+
+/** Options of {@link fitNoiseEm} and {@link fitNoiseMle}. */
+export interface NoiseFitOptions {
+  /** Starting process-noise intensity (default: per-step position noise equal to the starting R). */
+  qInit?: number;
+  /** Starting measurement variance (default: mean square of the second differences of z, over 6). */
+  rInit?: number;
+  /** Keep q fixed at this value (only R is estimated). */
+  fixedQ?: number;
+  /** Keep R fixed at this value (only q is estimated). */
+  fixedR?: number;
+  /** Stop when the relative change of the log-likelihood between iterations is below this (default 1e-9). */
+  tol?: number;
+  /** Iteration cap (default 5000 for EM, 2000 likelihood evaluations for direct maximisation). */
+  maxIterations?: number;
+}
+
+/** Result of a noise fit. */
+export interface NoiseFit {
+  /** Process-noise intensity q (units of the model's Q per unit of Qs; m^2/s^3 for [p, v] models). */
+  qIntensity: number;
+  /** Measurement-noise variance, data units squared (m^2 for positions). */
+  measurementVarM2: number;
+  /** Log-likelihood at the returned values. */
+  logLik: number;
+  /** EM iterations or likelihood evaluations used. */
+  iterations: number;
+  /** True when the tolerance was met before the cap. */
+  converged: boolean;
+}
+
+interface Prepared {
+  T: number;
+  n: number;
+  qInit: number;
+  rInit: number;
+  workspace: AxisWorkspace | undefined;
+}
+
+function prepare(build: NoiseModelBuilder, z: Float64Array, timesS: Float64Array, opts: NoiseFitOptions): Prepared {
+  const probe = build(1, 1);
+  if (probe.m !== 1) throw new DimensionMismatchError(`noise fitting needs a model with m = 1 (per axis), got m = ${probe.m}`);
+  const T = checkFilterInputs(probe, z, timesS);
+  if (T < 3) throw new RangeError(`noise fitting needs at least 3 samples, got ${T}`);
+  let observed = 0;
+  for (let k = 0; k < T; k++) if (!Number.isNaN(z[k])) observed++;
+  if (observed < 3) throw new RangeError(`noise fitting needs at least 3 observed samples, got ${observed}`);
+  for (const [name, v] of [['qInit', opts.qInit], ['rInit', opts.rInit], ['fixedQ', opts.fixedQ], ['fixedR', opts.fixedR]] as const) {
+    if (v !== undefined && !(v > 0 && Number.isFinite(v))) throw new RangeError(`${name} must be finite and > 0, got ${v}`);
+  }
+  // Default R: second differences of white noise have variance 6 R.
+  let rInit = opts.fixedR ?? opts.rInit;
+  if (rInit === undefined) {
+    let s = 0, c = 0;
+    for (let k = 2; k < T; k++) {
+      const d = z[k] - 2 * z[k - 1] + z[k - 2];
+      if (d === d) { s += d * d; c++; }
+    }
+    rInit = c > 0 && s > 0 ? s / c / 6 : 1;
+  }
+  let qInit = opts.fixedQ ?? opts.qInit;
+  if (qInit === undefined) {
+    // Per-step position noise q Qs[0,0] about equal to R at the median step.
+    const F = new Float64Array(probe.n ** 2), u = new Float64Array(probe.n), Q = new Float64Array(probe.n ** 2);
+    probe.discretize(medianStep(timesS), F, u, Q);
+    qInit = Q[0] > 0 ? rInit / Q[0] : 1;
+  }
+  const n = probe.n;
+  return { T, n, qInit, rInit, workspace: n === 2 || n === 3 ? createAxisWorkspace(n, T) : undefined };
+}
+
+function medianStep(timesS: Float64Array): number {
+  const T = timesS.length;
+  if (T < 2) return 1;
+  const d = new Float64Array(T - 1);
+  for (let k = 1; k < T; k++) d[k - 1] = timesS[k] - timesS[k - 1];
+  d.sort();
+  return d[(T - 1) >> 1];
+}
+
+/**
+ * EM estimate of (q, R) for a per-axis model with Q_k = q Qs(dt_k), x0 and P0 held fixed.
+ *
+ * E-step: Kalman filter and RTS smoother with lag-one covariances. M-step (exact for this
+ * parameterisation):
+ *   R = (1/N) sum over observed k of [(z_k - H x_k|T)^2 + H P_k|T H'],
+ *   q = sum_k tr(Qs_k^+ E_k) / sum_k rank(Qs_k), with
+ *   E_k = E[w_k w_k' | all] = e e' + P_k|T - P_k,k-1|T F' - F P_k,k-1|T' + F P_k-1|T F', e = x_k|T - F x_k-1|T - u,
+ * where Qs^+ inverts Qs on the states that receive noise (states with zero noise, such as a fitted
+ * gravity, are left out). Iterates until the relative change of the log-likelihood is below `tol`.
+ *
+ * @param build - model for given (q, R); Q linear in q, m = 1
+ * @param z - observations, T, NaN for missing
+ * @param timesS - sample times, s, strictly increasing
+ * @param opts - starting values, fixed values, tolerance, iteration cap
+ * @returns the estimates, final log-likelihood, iterations and whether the tolerance was met
+ * @throws RangeError / DimensionMismatchError for bad input (as kalmanFilter), fewer than 3 observed samples,
+ *   or a model whose Qs is zero everywhere
+ * @see Shumway & Stoffer (1982), J. Time Series Anal. 3:253-264; Shumway & Stoffer (2017), Time Series
+ *   Analysis and Its Applications, 4th ed., sec. 6.3
+ */
+export function fitNoiseEm(build: NoiseModelBuilder, z: Float64Array, timesS: Float64Array, opts: NoiseFitOptions = {}): NoiseFit {
+  const { T, n, qInit, rInit, workspace } = prepare(build, z, timesS, opts);
+  const tol = opts.tol ?? 1e-9;
+  const maxIt = opts.maxIterations ?? 5000;
+  const nn = n * n;
+  const F = new Float64Array(nn), u = new Float64Array(n), Qs = new Float64Array(nn);
+  const E = new Float64Array(nn), FP = new Float64Array(nn), e = new Float64Array(n);
+  const L = new Float64Array(nn), sub = new Float64Array(nn), rhs = new Float64Array(nn);
+  const support = new Int32Array(n);
+  const unit = build(1, rInit);
+  let q = qInit, r = rInit;
+  let prevLl = -Infinity;
+  let ll = -Infinity;
+  let it = 0;
+  let converged = false;
+  for (;;) {
+    const model = build(q, r);
+    const { filtered: f, smoothed: s } = filterSmoothAxis(model, z, timesS, workspace);
+    const xS = s.xSmooth, PS = s.PSmooth, PL = s.PLag;
+    ll = f.logLik;
+    if (it > 0 && Math.abs(ll - prevLl) <= tol * Math.abs(ll)) {
+      converged = true;
+      break;
+    }
+    if (it >= maxIt) break;
+    prevLl = ll;
+    it++;
+    // M-step for R (m = 1)
+    const H = model.H;
+    let rs = 0, cnt = 0;
+    for (let k = 0; k < T; k++) {
+      const zk = z[k];
+      if (zk !== zk) continue;
+      let hx = 0, hph = 0;
+      for (let i = 0; i < n; i++) {
+        hx += H[i] * xS[k * n + i];
+        for (let j = 0; j < n; j++) hph += H[i] * PS[k * nn + i * n + j] * H[j];
+      }
+      rs += (zk - hx) * (zk - hx) + hph;
+      cnt++;
+    }
+    // M-step for q
+    let trSum = 0, rankSum = 0, lastDt = NaN, d = 0;
+    for (let k = 1; k < T; k++) {
+      const dt = timesS[k] - timesS[k - 1];
+      if (dt !== lastDt) {
+        unit.discretize(dt, F, u, Qs);
+        d = 0;
+        for (let i = 0; i < n; i++) if (Qs[i * n + i] > 0) support[d++] = i;
+        for (let a = 0; a < d; a++) for (let b = 0; b < d; b++) sub[a * d + b] = Qs[support[a] * n + support[b]];
+        if (d > 0 && !choleskyLower(sub, 0, d, L)) d = -1;
+        lastDt = dt;
+      }
+      if (d <= 0) continue;
+      const xo = k * n, po = k * nn;
+      // e = x_k|T - F x_k-1|T - u
+      for (let i = 0; i < n; i++) {
+        let v = xS[xo + i] - u[i];
+        for (let j = 0; j < n; j++) v -= F[i * n + j] * xS[xo - n + j];
+        e[i] = v;
+      }
+      // FP = F P_k-1|T
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+        let v = 0;
+        for (let l = 0; l < n; l++) v += F[i * n + l] * PS[po - nn + l * n + j];
+        FP[i * n + j] = v;
+      }
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+        let v = e[i] * e[j] + PS[po + i * n + j];
+        for (let l = 0; l < n; l++) {
+          v -= PL[po + i * n + l] * F[j * n + l] + F[i * n + l] * PL[po + j * n + l];
+          v += FP[i * n + l] * F[j * n + l];
+        }
+        E[i * n + j] = v;
+      }
+      // tr(Qs_sub^-1 E_sub) by a Cholesky solve
+      for (let a = 0; a < d; a++) for (let b = 0; b < d; b++) rhs[a * d + b] = E[support[a] * n + support[b]];
+      choleskySolveInPlace(L, d, rhs, d);
+      for (let a = 0; a < d; a++) trSum += rhs[a * d + a];
+      rankSum += d;
+    }
+    if (rankSum === 0) throw new RangeError('fitNoiseEm: the model has no process noise to estimate (Qs is zero at every step)');
+    if (opts.fixedR === undefined) r = Math.max(rs / cnt, Number.MIN_VALUE);
+    if (opts.fixedQ === undefined) q = Math.max(trSum / rankSum, Number.MIN_VALUE);
+  }
+  return { qIntensity: q, measurementVarM2: r, logLik: ll, iterations: it, converged };
+}
+
+/**
+ * Direct maximum-likelihood estimate of (q, R): Nelder-Mead on (log q, log R) over the Kalman-filter
+ * log-likelihood (golden-section search on one of them when the other is fixed). x0 and P0 held fixed.
+ * @param build - model for given (q, R); m = 1
+ * @param z - observations, T, NaN for missing
+ * @param timesS - sample times, s, strictly increasing
+ * @param opts - starting values, fixed values, tolerance (relative, on the log-likelihood spread of
+ *   the simplex, and 1e-10 on log-parameters), evaluation cap
+ * @returns the estimates and the maximised log-likelihood
+ * @throws as {@link fitNoiseEm}
+ * @see Nelder & Mead (1965), Computer J. 7:308-313; Harvey (1989), Forecasting, Structural Time Series
+ *   Models and the Kalman Filter, ch. 3 (prediction-error decomposition of the likelihood)
+ */
+export function fitNoiseMle(build: NoiseModelBuilder, z: Float64Array, timesS: Float64Array, opts: NoiseFitOptions = {}): NoiseFit {
+  const { qInit, rInit, workspace } = prepare(build, z, timesS, opts);
+  const tol = opts.tol ?? 1e-9;
+  const maxEval = opts.maxIterations ?? 2000;
+  let evals = 0;
+  const negLl = (lq: number, lr: number): number => {
+    evals++;
+    const model = build(Math.exp(lq), Math.exp(lr));
+    try {
+      const ll = workspace ? filterSmoothLl(model, z, timesS, workspace) : kalmanFilter(model, z, timesS).logLik;
+      return Number.isFinite(ll) ? -ll : Infinity;
+    } catch {
+      return Infinity;
+    }
+  };
+  const lq0 = Math.log(qInit), lr0 = Math.log(rInit);
+  if (opts.fixedQ !== undefined && opts.fixedR !== undefined) {
+    const v = negLl(lq0, lr0);
+    return { qIntensity: qInit, measurementVarM2: rInit, logLik: -v, iterations: 1, converged: true };
+  }
+  if (opts.fixedQ !== undefined || opts.fixedR !== undefined) {
+    const fixQ = opts.fixedQ !== undefined;
+    const g = (x: number) => (fixQ ? negLl(lq0, x) : negLl(x, lr0));
+    const { x, fx, converged } = golden1d(g, fixQ ? lr0 : lq0, maxEval);
+    return {
+      qIntensity: fixQ ? qInit : Math.exp(x), measurementVarM2: fixQ ? Math.exp(x) : rInit,
+      logLik: -fx, iterations: evals, converged,
+    };
+  }
+  const res = nelderMead2((a, b) => negLl(a, b), lq0, lr0, tol, maxEval);
+  return { qIntensity: Math.exp(res.x[0]), measurementVarM2: Math.exp(res.x[1]), logLik: -res.fx, iterations: evals, converged: res.converged };
+}
+
+function filterSmoothLl(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, ws: AxisWorkspace): number {
+  return filterSmoothAxis(model, z, timesS, ws).filtered.logLik;
+}
+
+/** Nelder-Mead in two dimensions with the standard coefficients (1, 2, 0.5, 0.5). */
+function nelderMead2(f: (a: number, b: number) => number, a0: number, b0: number, tol: number, maxEval: number) {
+  const P = [[a0, b0], [a0 + 1, b0], [a0, b0 + 1]];
+  const V = P.map((p) => f(p[0], p[1]));
+  let evals = 3;
+  let converged = false;
+  while (evals < maxEval) {
+    const idx = [0, 1, 2].sort((i, j) => V[i] - V[j]);
+    const [b, m, w] = idx;
+    const spreadF = Math.abs(V[w] - V[b]);
+    const size = Math.max(Math.abs(P[w][0] - P[b][0]) + Math.abs(P[w][1] - P[b][1]), Math.abs(P[m][0] - P[b][0]) + Math.abs(P[m][1] - P[b][1]));
+    if (spreadF <= tol * Math.max(1, Math.abs(V[b])) && size <= 1e-10) { converged = true; break; }
+    if (size <= 1e-13) { converged = spreadF <= tol * Math.max(1, Math.abs(V[b])); break; }
+    const c = [(P[b][0] + P[m][0]) / 2, (P[b][1] + P[m][1]) / 2];
+    const pt = (t: number) => [c[0] + t * (P[w][0] - c[0]), c[1] + t * (P[w][1] - c[1])];
+    const xr = pt(-1); const fr = f(xr[0], xr[1]); evals++;
+    if (fr < V[b]) {
+      const xe = pt(-2); const fe = f(xe[0], xe[1]); evals++;
+      if (fe < fr) { P[w] = xe; V[w] = fe; } else { P[w] = xr; V[w] = fr; }
+    } else if (fr < V[m]) {
+      P[w] = xr; V[w] = fr;
+    } else {
+      const xc = fr < V[w] ? pt(-0.5) : pt(0.5);
+      const fc = f(xc[0], xc[1]); evals++;
+      if (fc < Math.min(fr, V[w])) { P[w] = xc; V[w] = fc; } else {
+        for (const i of [m, w]) {
+          P[i] = [(P[i][0] + P[b][0]) / 2, (P[i][1] + P[b][1]) / 2];
+          V[i] = f(P[i][0], P[i][1]); evals++;
+        }
+      }
+    }
+  }
+  let best = 0;
+  for (let i = 1; i < 3; i++) if (V[i] < V[best]) best = i;
+  return { x: P[best], fx: V[best], converged };
+}
+
+/** Golden-section minimisation of a 1-D function: brackets from x0 by doubling steps, then narrows to 1e-10. */
+function golden1d(f: (x: number) => number, x0: number, maxEval: number) {
+  let step = 1;
+  let a = x0 - step, b = x0 + step;
+  let fa = f(a), fx = f(x0), fb = f(b);
+  let evals = 3;
+  // widen until x0 region is a bracket (fa >= fx <= fb)
+  let mid = x0;
+  while ((fa < fx || fb < fx) && evals < maxEval) {
+    if (fa < fx) { b = mid; fb = fx; mid = a; fx = fa; step *= 2; a = mid - step; fa = f(a); }
+    else { a = mid; fa = fx; mid = b; fx = fb; step *= 2; b = mid + step; fb = f(b); }
+    evals++;
+  }
+  const gr = (Math.sqrt(5) - 1) / 2;
+  let c = b - gr * (b - a), d = a + gr * (b - a);
+  let fc = f(c), fd = f(d);
+  evals += 2;
+  while (b - a > 1e-10 && evals < maxEval) {
+    if (fc < fd) { b = d; d = c; fd = fc; c = b - gr * (b - a); fc = f(c); }
+    else { a = c; c = d; fc = fd; d = a + gr * (b - a); fd = f(d); }
+    evals++;
+  }
+  const x = fc < fd ? c : d;
+  return { x, fx: Math.min(fc, fd), converged: b - a <= 1e-10 };
+}
