@@ -1,0 +1,97 @@
+/**
+ * Data-quality checks run on the analysed span before any detector: non-finite samples, clipping,
+ * constant signal and an active baseline.
+ */
+
+/** Counts of what the quality checks found. */
+export interface SpanQuality {
+  nanCount: number;
+  clipped: boolean;
+  constant: boolean;
+}
+
+/**
+ * Non-finite samples, saturation (a run of at least 3 equal samples at the span's maximum or minimum, or a
+ * sample at or beyond saturationLevel) and zero variance over raw[from..to).
+ * @param raw - raw samples
+ * @param from - span start (inclusive)
+ * @param to - span end (exclusive)
+ * @param saturationLevel - absolute level counted as saturated, or null
+ * @returns what was found
+ */
+export function checkSpanQuality(raw: Float64Array | Float32Array, from: number, to: number, saturationLevel: number | null): SpanQuality {
+  let nanCount = 0;
+  let lo = Infinity;
+  let hi = -Infinity;
+  let saturated = false;
+  for (let i = from; i < to; i++) {
+    const v = raw[i];
+    if (!Number.isFinite(v)) {
+      nanCount++;
+      continue;
+    }
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+    if (saturationLevel !== null && Math.abs(v) >= saturationLevel) saturated = true;
+  }
+  const constant = !(hi > lo);
+  if (!constant && !saturated) {
+    let run = 0;
+    let prev = NaN;
+    for (let i = from; i < to; i++) {
+      const v = raw[i];
+      run = v === prev && (v === hi || v === lo) ? run + 1 : 1;
+      prev = v;
+      if (run >= 3) {
+        saturated = true;
+        break;
+      }
+    }
+  }
+  return { nanCount, clipped: saturated, constant };
+}
+
+function blockRms(x: Float64Array, from: number, to: number): number {
+  let s = 0;
+  let n = 0;
+  for (let i = from; i < to; i++) {
+    const v = x[i];
+    if (v === v) {
+      s += v * v;
+      n++;
+    }
+  }
+  return n > 0 ? Math.sqrt(s / n) : NaN;
+}
+
+/**
+ * Whether the baseline probably holds activity: its four quarters differ in RMS by more than a factor 2
+ * (not stationary), or its RMS is more than twice that of the quietest 50 ms block of the search span.
+ * @param conditioned - band-passed samples
+ * @param baseFrom - baseline start index
+ * @param baseTo - baseline end index (exclusive)
+ * @param searchFrom - search start index
+ * @param searchTo - search end index (exclusive)
+ * @param rateHz - sample rate, Hz
+ * @returns true when the baseline looks active
+ */
+export function baselineLooksActive(conditioned: Float64Array, baseFrom: number, baseTo: number, searchFrom: number, searchTo: number, rateHz: number): boolean {
+  const len = baseTo - baseFrom;
+  if (len < 8) return false;
+  let qMin = Infinity;
+  let qMax = 0;
+  for (let q = 0; q < 4; q++) {
+    const r = blockRms(conditioned, baseFrom + Math.floor((q * len) / 4), baseFrom + Math.floor(((q + 1) * len) / 4));
+    if (r < qMin) qMin = r;
+    if (r > qMax) qMax = r;
+  }
+  if (qMax > 2 * qMin) return true;
+  const block = Math.max(4, Math.round(0.05 * rateHz));
+  let quietest = Infinity;
+  for (let b = searchFrom; b + block <= searchTo; b += block) {
+    const r = blockRms(conditioned, b, b + block);
+    if (r < quietest) quietest = r;
+  }
+  const baseRms = blockRms(conditioned, baseFrom, baseTo);
+  return Number.isFinite(quietest) && baseRms > 2 * quietest;
+}
