@@ -30,13 +30,13 @@ function detector(ctx: OnsetContext): DetectorOutput {
 /**
  * Detects the onset (and offset where the method defines one) of muscle activity in one EMG channel.
  * The baseline is `searchWindow.baselineFromS..baselineToS` when given, otherwise the first
- * `settings.baselineDurationS` of the search window (the onset is then searched after it). Only the span
+ * `settings.baselineDurationS` of the search window, and the onset is searched after it. Only the span
  * around the windows (plus `conditioningMarginS` each side) is conditioned.
  * @param signal - raw samples of the channel
  * @param rateHz - sample rate, Hz
  * @param startS - recording-clock time of sample 0, s
  * @param settings - method, conditioning and parameters (see DEFAULT_ONSET_SETTINGS)
- * @param searchWindow - search window (and optional baseline) on the recording clock, s
+ * @param searchWindow - search span and optional baseline on the recording clock, s
  * @returns onset/offset in s on the recording clock (null when none), quality flags and detection details
  * @throws RangeError for an empty signal, a bad sample rate or start time, a window that is empty or lies
  *   wholly outside the recording (message names window and recording span), a sample rate too low for the
@@ -63,7 +63,7 @@ export function detectOnset(
   }
   const endS = startS + n / rateHz;
   if (!(toS > startS && fromS < endS)) {
-    throw new RangeError(`detectOnset: search window [${fromS}, ${toS}] s lies outside the recording [${startS}, ${endS}] s`);
+    throw new RangeError(`detectOnset: the search window, [${fromS}, ${toS}] s, lies outside the recording [${startS}, ${endS}] s`);
   }
   const explicitBase = searchWindow.baselineFromS !== undefined || searchWindow.baselineToS !== undefined;
   if (explicitBase) {

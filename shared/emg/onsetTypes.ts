@@ -12,7 +12,7 @@ export type OnsetMethod = 'baseline-threshold' | 'double-threshold' | 'tkeo-thre
  * - `baseline-too-short`: the baseline is shorter than `minBaselineS` (or has too few finite samples to estimate its spread).
  * - `baseline-too-active`: the baseline is not stationary or is louder than the quietest part of the search
  *   window; its mean and SD probably include muscle activity or artefact.
- * - `onset-at-window-edge`: the onset lies within `edgeMarginS` of the start or end of the search window.
+ * - `onset-at-window-edge`: the onset lies within `edgeMarginS` of either end of the search span.
  * - `active-at-window-start`: the detector's rule already holds at the first search sample; the true onset is
  *   earlier than the window, so onsetS is null.
  * - `clipped`: the raw signal sits at its extreme value for several samples in a row (or reaches
@@ -38,7 +38,7 @@ export interface OnsetSearchWindow {
   fromS: number;
   /** End of the search window, s. */
   toS: number;
-  /** Explicit baseline start, s (with baselineToS); default: the first `baselineDurationS` of the search window. */
+  /** Explicit baseline start, s (with baselineToS); default: the first `baselineDurationS` of the search window, after which the onset is searched. */
   baselineFromS?: number;
   /** Explicit baseline end, s. */
   baselineToS?: number;

@@ -121,7 +121,7 @@ describe('bad input to detectOnset throws a RangeError that names the numbers', 
     expect(() => detectOnset(new Float64Array(0), RATE, 0, DEFAULT_ONSET_SETTINGS, WINDOW)).toThrow(/empty/);
   });
   it('window wholly outside the recording', () => {
-    expect(() => detectOnset(trial(), RATE, 0, DEFAULT_ONSET_SETTINGS, { fromS: 3, toS: 4 })).toThrow(/\[3, 4\] s lies outside the recording \[0, 2.5\] s/);
+    expect(() => detectOnset(trial(), RATE, 0, DEFAULT_ONSET_SETTINGS, { fromS: 3, toS: 4 })).toThrow(/\[3, 4\] s, lies outside the recording \[0, 2.5\] s/);
   });
   it('reversed or NaN window', () => {
     expect(() => detectOnset(trial(), RATE, 0, DEFAULT_ONSET_SETTINGS, { fromS: 2, toS: 1 })).toThrow(/fromS < toS/);
