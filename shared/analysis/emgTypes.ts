@@ -3,6 +3,8 @@
  * Where shared/emg exports the real type it is re-exported under the name used here.
  */
 import { DEFAULT_EMG_CONDITIONING, type EmgConditioningSettings } from '../emg/emgConditioningSettings';
+import { DEFAULT_ONSET_SETTINGS } from '../emg/onsetSettings';
+import type { OnsetResult, OnsetSettings } from '../emg/onsetTypes';
 
 /** EMG conditioning settings (band-pass, notch, rectification, envelope); shared/emg. */
 export type EmgConditioningSettingsLike = EmgConditioningSettings;
@@ -10,28 +12,14 @@ export type EmgConditioningSettingsLike = EmgConditioningSettings;
 /** Defaults of the conditioning chain (shared/emg DEFAULT_EMG_CONDITIONING). */
 export const DEFAULT_EMG_CONDITIONING_SETTINGS: EmgConditioningSettings = DEFAULT_EMG_CONDITIONING as EmgConditioningSettings;
 
-/** Onset detector settings; `method` names the published detector. See shared/emg detectOnset. */
-export interface OnsetSettingsLike {
-  method: 'baseline-threshold' | 'double-threshold' | 'tkeo-threshold' | 'change-point';
-  [key: string]: unknown;
-}
+/** Onset detector settings (method, conditioning, baseline and per-method parameters); shared/emg. */
+export type OnsetSettingsLike = OnsetSettings;
 
-/** Default onset detector settings (placeholder until shared/emg exports DEFAULT_ONSET_SETTINGS). */
-export const DEFAULT_ONSET_DETECTION_SETTINGS: OnsetSettingsLike = { method: 'baseline-threshold' };
+/** Default onset detector settings (shared/emg DEFAULT_ONSET_SETTINGS). */
+export const DEFAULT_ONSET_DETECTION_SETTINGS: OnsetSettings = DEFAULT_ONSET_SETTINGS as OnsetSettings;
 
-/** Result of one automatic onset detection. See shared/emg detectOnset. */
-export interface OnsetResultLike {
-  /** Onset time on the recording clock, s; null when none was found. */
-  onsetS: number | null;
-  /** Offset time on the recording clock, s; null when none was found. */
-  offsetS: number | null;
-  /** Quality flags raised by the detector (e.g. 'no-onset', 'saturated'). */
-  flags: readonly string[];
-  /** Detector name. */
-  method: string;
-  /** Detector-specific details (threshold, baseline statistics, ...). */
-  detail?: unknown;
-}
+/** Result of one automatic onset detection (shared/emg detectOnset). */
+export type OnsetResultLike = OnsetResult;
 
 /** One manual edit of an onset; see shared/emg/onsetJournal.ts. */
 export interface OnsetEditLike {

@@ -1,20 +1,19 @@
 import type { SignalChannel } from '../recording/types';
 import { conditionEmg } from '../emg/conditionEmg';
+import { detectOnset } from '../emg/detectOnset';
 import type { OnsetResultLike, StudySettings } from './types';
 
 /**
- * Onset of one muscle in a search window: conditions the raw channel with the study's EMG conditioning
- * and runs the onset detector.
- *
- * LOCAL STAND-IN DETECTOR until shared/emg detectOnset (contract D) lands: baseline threshold on the
- * envelope (mean + 3 SD of the 0.5 s before the window, sustained 25 ms; Hodges & Bui 1996,
- * Electroencephalogr Clin Neurophysiol 101:511-519).
+ * Onset of one muscle in a search window with shared/emg's detector (settings.onset), the baseline taken
+ * from the 0.4 s before the window (the object still at rest), plus the envelope of the whole channel for
+ * views (settings.conditioning).
  *
  * @param channel - raw EMG channel
  * @param offsetS - added to the channel's clock to put it on the kinematics clock, s
  * @param settings - study settings (conditioning, onset)
  * @param window - search window on the kinematics clock, s
- * @returns the onset result and the envelope (for views)
+ * @returns the onset result (recording clock of the kinematics), the envelope and its start time
+ * @throws RangeError from detectOnset when the window lies outside the channel
  */
 export function muscleOnset(
   channel: SignalChannel,
@@ -22,42 +21,14 @@ export function muscleOnset(
   settings: StudySettings,
   window: { fromS: number; toS: number },
 ): { result: OnsetResultLike; envelope: Float64Array; startS: number } {
-  const { envelope } = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
   const startS = channel.startS + offsetS;
-  const rate = channel.rateHz;
-  const idx = (t: number): number => Math.min(envelope.length, Math.max(0, Math.round((t - startS) * rate)));
-  const b0 = idx(window.fromS - 0.5);
-  const b1 = idx(window.fromS);
-  const flags: string[] = [];
-  if (b1 - b0 < 10) {
-    return { result: { onsetS: null, offsetS: null, flags: ['no-baseline'], method: 'baseline-threshold' }, envelope, startS };
-  }
-  let m = 0;
-  for (let i = b0; i < b1; i++) m += envelope[i];
-  m /= b1 - b0;
-  let ss = 0;
-  for (let i = b0; i < b1; i++) ss += (envelope[i] - m) ** 2;
-  const sd = Math.sqrt(ss / (b1 - b0 - 1));
-  const k = 3;
-  const threshold = m + k * sd;
-  const sustain = Math.max(1, Math.round(0.025 * rate));
-  const w0 = idx(window.fromS);
-  const w1 = idx(window.toS);
-  let run = 0;
-  let onsetS: number | null = null;
-  for (let i = w0; i < w1; i++) {
-    if (envelope[i] > threshold) {
-      run++;
-      if (run >= sustain) {
-        onsetS = startS + (i - run + 1) / rate;
-        break;
-      }
-    } else run = 0;
-  }
-  if (onsetS === null) flags.push('no-onset');
-  return {
-    result: { onsetS, offsetS: null, flags, method: 'baseline-threshold', detail: { baselineMean: m, baselineSd: sd, k, thresholdValue: threshold } },
-    envelope,
-    startS,
-  };
+  const baselineFromS = Math.max(startS, window.fromS - 0.4);
+  const result = detectOnset(channel.values, channel.rateHz, startS, settings.onset, {
+    fromS: window.fromS,
+    toS: window.toS,
+    baselineFromS,
+    baselineToS: window.fromS,
+  });
+  const { envelope } = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
+  return { result, envelope, startS };
 }

@@ -15,11 +15,12 @@ export interface SimulateStudyOptions {
   seed: number;
   /** Programmed accelerations in multiples of g0 (default 0, 0.5, 1); each is one condition `a0`, `a0.5`, `a1`. */
   accG?: number[];
-  /** Drop heights above the catch height, m (default 1.8 to 3.0, drawn uniformly). */
+  /** Drop heights above the catch height, m (default 1.5 to 3.0, drawn uniformly). */
   dropRangeM?: [number, number];
   /**
    * Initial speed range after launch for a programmed acceleration (m/s, drawn uniformly); default
-   * 2-4 m/s at 0 g, 1-3 m/s below 0.75 g, 0.5-1.5 m/s above, so that every motion lasts over 0.5 s.
+   * 1.5-3.5 m/s at 0 g, 0.5-2.5 m/s below 0.75 g, 0.2-1.5 m/s above, so that every motion lasts about
+   * 0.5 s or more.
    */
   speedRangeMps?: (accG: number) => [number, number];
   /** Catch height, m (default 1.0). */
@@ -62,8 +63,8 @@ export function simulateStudy(opts: SimulateStudyOptions): { trials: SimulatedTr
   if (!(opts.trialsPerSubject >= 1)) throw new RangeError(`simulateStudy: trialsPerSubject must be >= 1, got ${opts.trialsPerSubject}`);
   const rng = seededRandom(opts.seed);
   const accG = opts.accG ?? [0, 0.5, 1];
-  const [d0, d1] = opts.dropRangeM ?? [1.8, 3.0];
-  const speedRange = opts.speedRangeMps ?? ((a: number): [number, number] => (a < 0.25 ? [2, 4] : a < 0.75 ? [1, 3] : [0.5, 1.5]));
+  const [d0, d1] = opts.dropRangeM ?? [1.5, 3.0];
+  const speedRange = opts.speedRangeMps ?? ((a: number): [number, number] => (a < 0.25 ? [1.5, 3.5] : a < 0.75 ? [0.5, 2.5] : [0.2, 1.5]));
   const catchHeightM = opts.catchHeightM ?? 1.0;
   const muscles = opts.recording?.muscles ?? ['FCR'];
   const silent = new Set(opts.silentTrials ?? []);
