@@ -1,8 +1,13 @@
 /**
  * The hot loop: decodes the frames of the data section into marker-major point arrays and scaled analog
- * channels. No allocation per frame or sample; one scratch frame is reused where the words must be decoded
- * (byte swapping, DEC floats, unsigned analog), and aligned little-endian data are read through typed-array
- * views directly.
+ * channels.
+ *
+ * Frames are handled in blocks of {@link BLOCK_FRAMES}: each block is either a zero-copy Float32Array view
+ * of the file (Intel float data on a little-endian host, 4-byte aligned) or decoded into one reused
+ * Float32Array scratch block (integer words, byte swapping, DEC floats, unsigned analog; every 16-bit word
+ * and every stored float32 is exact in float32). The block is then transposed marker by marker, so reads
+ * stay inside a cache-sized block and writes run sequentially along each output array. No allocation per
+ * frame or sample.
  */
 import type { C3dProcessor } from './c3dTypes';
 import type { C3dLayout } from './resolveC3dLayout';
@@ -19,6 +24,9 @@ export interface C3dFrameData {
   /** One array per channel, frameCount x samples per frame values, scaled. */
   analog: Float32Array[];
 }
+
+/** Frames per block: about 256 kB for a 1 kB frame, small enough to stay in cache while transposed. */
+const BLOCK_FRAMES = 256;
 
 const platformLittleEndian = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
@@ -53,103 +61,128 @@ export function readC3dFrames(
   const S = layout.analogSamplesPerFrame;
   const W = layout.frameWords;
   const isFloat = layout.storage === 'float';
-  const coordScale = isFloat ? 1 : layout.scale;
-  const absScale = Math.abs(layout.scale);
-  const xyz = new Float32Array(P * 3 * F);
-  const residual = new Float32Array(P * F);
-  const cameraMask = new Uint8Array(P * F);
-  const analog: Float32Array[] = [];
-  for (let c = 0; c < C; c++) analog.push(new Float32Array(F * S));
-  if (F === 0 || W === 0) return { xyz, residual, cameraMask, analog };
+  const out: C3dFrameData = {
+    xyz: new Float32Array(P * 3 * F),
+    residual: new Float32Array(P * F),
+    cameraMask: new Uint8Array(P * F),
+    analog: [],
+  };
+  for (let c = 0; c < C; c++) out.analog.push(new Float32Array(F * S));
+  if (F === 0 || W === 0) return out;
 
   const absOffset = bytes.byteOffset + layout.dataOffset;
-  const littleEndian = processor !== 'sgi';
-  const direct = platformLittleEndian && littleEndian && (processor === 'intel' || !isFloat) && (!unsignedAnalog || isFloat || C === 0);
-  let src: Float32Array | Int16Array | Float64Array;
-  let stride: number;
-  let scratch: Float64Array | null = null;
-  if (direct && absOffset % layout.wordBytes === 0) {
-    src = isFloat ? new Float32Array(bytes.buffer, absOffset, F * W) : new Int16Array(bytes.buffer, absOffset, F * W);
-    stride = W;
-  } else if (direct) {
-    // Unaligned: one copy to an aligned buffer is still cheaper than per-word DataView reads.
-    const copy = bytes.slice(layout.dataOffset, layout.dataOffset + F * W * layout.wordBytes);
-    src = isFloat ? new Float32Array(copy.buffer) : new Int16Array(copy.buffer);
-    stride = W;
-  } else {
-    scratch = new Float64Array(W);
-    src = scratch;
-    stride = 0;
-  }
+  const zeroCopy = platformLittleEndian && processor === 'intel' && isFloat && absOffset % 4 === 0;
+  const fileView = zeroCopy ? new Float32Array(bytes.buffer, absOffset, F * W) : null;
+  const scratch = zeroCopy ? null : new Float32Array(Math.min(F, BLOCK_FRAMES) * W);
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const frameBytes = W * layout.wordBytes;
-  const analogStart = 4 * P;
-
-  for (let f = 0; f < F; f++) {
-    let base = f * stride;
-    if (scratch) {
-      decodeFrame(view, layout.dataOffset + f * frameBytes, scratch, processor, isFloat, analogStart, unsignedAnalog);
-      base = 0;
+  const params: BlockParams = {
+    P,
+    F,
+    C,
+    S,
+    W,
+    coordScale: isFloat ? 1 : layout.scale,
+    absScale: Math.abs(layout.scale),
+    analogOffset,
+    analogFactor,
+  };
+  for (let f0 = 0; f0 < F; f0 += BLOCK_FRAMES) {
+    const n = Math.min(BLOCK_FRAMES, F - f0);
+    let block: Float32Array;
+    if (fileView) {
+      block = fileView.subarray(f0 * W, (f0 + n) * W);
+    } else {
+      block = scratch!;
+      decodeBlock(view, layout.dataOffset + f0 * frameBytes, n * W, block, processor, isFloat, W, 4 * P, unsignedAnalog);
     }
-    for (let p = 0; p < P; p++) {
-      const b = base + 4 * p;
-      const r = src[b + 3];
-      const o = p * 3 * F + f;
-      const q = p * F + f;
+    transposeBlock(block, n, f0, params, out);
+  }
+  return out;
+}
+
+interface BlockParams {
+  P: number;
+  F: number;
+  C: number;
+  S: number;
+  W: number;
+  coordScale: number;
+  absScale: number;
+  analogOffset: Float64Array;
+  analogFactor: Float64Array;
+}
+
+/** Moves frames f0 .. f0 + n - 1 from the frame-major block into the marker-major outputs. */
+function transposeBlock(block: Float32Array, n: number, f0: number, k: BlockParams, out: C3dFrameData): void {
+  const { P, F, C, S, W, coordScale, absScale } = k;
+  const { xyz, residual, cameraMask } = out;
+  for (let p = 0; p < P; p++) {
+    const ox = p * 3 * F + f0;
+    const oy = ox + F;
+    const oz = oy + F;
+    const oq = p * F + f0;
+    let b = 4 * p;
+    for (let j = 0; j < n; j++, b += W) {
+      const r = block[b + 3];
       if (r >= 0) {
-        xyz[o] = src[b] * coordScale;
-        xyz[o + F] = src[b + 1] * coordScale;
-        xyz[o + 2 * F] = src[b + 2] * coordScale;
+        xyz[ox + j] = block[b] * coordScale;
+        xyz[oy + j] = block[b + 1] * coordScale;
+        xyz[oz + j] = block[b + 2] * coordScale;
         const w = r & 0x7fff;
-        cameraMask[q] = w >> 8;
-        residual[q] = (w & 0xff) * absScale;
+        cameraMask[oq + j] = w >> 8;
+        residual[oq + j] = (w & 0xff) * absScale;
       } else {
         // Negative (or NaN) residual word: the sample is invalid.
-        xyz[o] = NaN;
-        xyz[o + F] = NaN;
-        xyz[o + 2 * F] = NaN;
-        residual[q] = NaN;
-      }
-    }
-    for (let s = 0; s < S; s++) {
-      const b = base + analogStart + s * C;
-      const i = f * S + s;
-      for (let c = 0; c < C; c++) {
-        // (raw - ANALOG:OFFSET) x ANALOG:SCALE x ANALOG:GEN_SCALE
-        analog[c][i] = (src[b + c] - analogOffset[c]) * analogFactor[c];
+        xyz[ox + j] = NaN;
+        xyz[oy + j] = NaN;
+        xyz[oz + j] = NaN;
+        residual[oq + j] = NaN;
       }
     }
   }
-  return { xyz, residual, cameraMask, analog };
+  const a0 = 4 * P;
+  for (let c = 0; c < C; c++) {
+    const dst = out.analog[c];
+    const offset = k.analogOffset[c];
+    const factor = k.analogFactor[c];
+    let o = f0 * S;
+    for (let j = 0; j < n; j++) {
+      let b = j * W + a0 + c;
+      for (let s = 0; s < S; s++, b += C) {
+        // (raw - ANALOG:OFFSET) x ANALOG:SCALE x ANALOG:GEN_SCALE
+        dst[o++] = (block[b] - offset) * factor;
+      }
+    }
+  }
 }
 
-/** Decodes one frame's words into `out` (big-endian, DEC floats, or unsigned analog words). */
-function decodeFrame(
+/** Decodes `count` words starting at byte `offset` into `out` (integers, byte-swapped or DEC floats). */
+function decodeBlock(
   view: DataView,
   offset: number,
-  out: Float64Array,
+  count: number,
+  out: Float32Array,
   processor: C3dProcessor,
   isFloat: boolean,
+  W: number,
   analogStart: number,
   unsignedAnalog: boolean,
 ): void {
   const le = processor !== 'sgi';
-  const n = out.length;
   if (isFloat) {
     if (processor === 'dec') {
-      for (let i = 0; i < n; i++) {
-        const at = offset + 4 * i;
-        out[i] = vaxFloatToNumber(view.getUint16(at, true), view.getUint16(at + 2, true));
-      }
+      for (let i = 0, at = offset; i < count; i++, at += 4) out[i] = vaxFloatToNumber(view.getUint16(at, true), view.getUint16(at + 2, true));
     } else {
-      for (let i = 0; i < n; i++) out[i] = view.getFloat32(offset + 4 * i, le);
+      for (let i = 0, at = offset; i < count; i++, at += 4) out[i] = view.getFloat32(at, le);
     }
     return;
   }
-  for (let i = 0; i < analogStart; i++) out[i] = view.getInt16(offset + 2 * i, le);
-  if (unsignedAnalog) {
-    for (let i = analogStart; i < n; i++) out[i] = view.getUint16(offset + 2 * i, le);
-  } else {
-    for (let i = analogStart; i < n; i++) out[i] = view.getInt16(offset + 2 * i, le);
+  if (!unsignedAnalog || analogStart === W) {
+    for (let i = 0, at = offset; i < count; i++, at += 2) out[i] = view.getInt16(at, le);
+    return;
+  }
+  for (let i = 0, at = offset; i < count; i++, at += 2) {
+    out[i] = i % W < analogStart ? view.getInt16(at, le) : view.getUint16(at, le);
   }
 }
