@@ -29,3 +29,5 @@ export * from './tkeoThresholdOnset';
 export * from './changePointOnset';
 export * from './detectOnset';
 export * from './describeOnsetMethod';
+export * from './onsetJournal';
+export * from './onsetJournalJson';
