@@ -30,7 +30,9 @@ export function c3dMetresPerUnit(units: string): number | undefined {
  * `C3D_POINT_UNITS` warning); residuals stay in file units and invalid samples stay NaN.
  *
  * @param file - a file from readC3d
- * @returns the recording (format `c3d`); `meta` holds processor type, storage, header and frame facts
+ * @returns the recording (format `c3d`); `meta` holds processorType ('intel' | 'dec' | 'sgi'), processorByte,
+ *   storage, pointScale, pointRateHz, analogRateHz, firstFrame, lastFrame, frames, pointUnits, analogFormat,
+ *   dataStartBlock, parameterBlock, headerEvents, groups and missingSamples (invalid frames per marker)
  */
 export function c3dToRecording(file: C3dFile): Recording {
   const warnings: ImportWarning[] = file.warnings.slice();
@@ -45,6 +47,7 @@ export function c3dToRecording(file: C3dFile): Recording {
   }
   const startS = (file.firstFrame - 1) / pts.rateHz;
   const markers: MarkerTrajectory[] = [];
+  const missingSamples: number[] = [];
   for (let p = 0; p < pts.labels.length; p++) {
     const axes: Float64Array[] = [];
     for (let a = 0; a < 3; a++) {
@@ -53,6 +56,10 @@ export function c3dToRecording(file: C3dFile): Recording {
       for (let f = 0; f < F; f++) out[f] = src[f] * factor;
       axes.push(out);
     }
+    let missing = 0;
+    const residual = pts.residual.subarray(p * F, (p + 1) * F);
+    for (let f = 0; f < F; f++) if (Number.isNaN(residual[f])) missing++;
+    missingSamples.push(missing);
     markers.push({
       label: pts.labels[p],
       x: axes[0],
@@ -97,6 +104,8 @@ export function c3dToRecording(file: C3dFile): Recording {
       parameterBlock: file.header.parameterBlock,
       headerEvents: file.header.events.length,
       groups: [...file.groups.keys()],
+      /** Invalid (missing) frames per marker, in marker order. */
+      missingSamples,
     },
   };
 }

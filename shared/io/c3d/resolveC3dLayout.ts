@@ -92,6 +92,9 @@ export function resolveC3dLayout(
     warn('C3D_POINT_SCALE', `POINT:SCALE ${scale} is not usable; taken as 1 (integer storage)`);
     scale = Number.isFinite(header.scale) && header.scale !== 0 ? header.scale : 1;
   }
+  if (Number.isFinite(header.scale) && header.scale !== 0 && header.scale < 0 !== scale < 0) {
+    warn('C3D_STORAGE', `POINT:SCALE ${scale} and header words 7-8 (${header.scale}) disagree on float storage; using POINT:SCALE`);
+  }
   const storage = scale < 0 ? 'float' : 'integer';
   const wordBytes = scale < 0 ? 4 : 2;
 

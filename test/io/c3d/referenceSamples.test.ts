@@ -203,6 +203,11 @@ describe.skipIf(!present)('c3d.org sample files (../shared/reference/c3d-org-sam
         }
         expect(rec.signals.map((s) => s.rateHz)).toEqual(new Array(set.analog).fill(set.analogRateHz));
         expect(rec.events.length).toBe(c3d.header.events.length);
+        // Missing samples per marker: the invalid (negative residual word) frames.
+        const missing = rec.meta.missingSamples as number[];
+        expect(missing.length).toBe(set.points);
+        rec.markers!.markers.forEach((m, p) => expect(missing[p]).toBe(m.x.filter((v) => Number.isNaN(v)).length));
+        expect(rec.meta).toMatchObject({ processorType: 'intel', storage: set.files[files[0].name].storage, pointRateHz: 50, analogRateHz: 200, firstFrame: 1, lastFrame: set.lastFrame, frames: set.lastFrame });
       });
     });
   }
