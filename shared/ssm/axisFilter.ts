@@ -28,7 +28,7 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
   // Filtered moments of the previous step (a: mean, c: covariance).
   let a0 = 0, a1 = 0, c00 = 0, c01 = 0, c11 = 0;
   let lastDt = NaN;
-  let logLik = 0;
+  let sumNis = 0, sumLogS = 0, prodS = 1;
   let nObs = 0;
   for (let k = 0; k < T; k++) {
     let x0: number, x1: number, p00: number, p01: number, p11: number;
@@ -75,7 +75,19 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
       const q = (v * v) / s;
       nis[k] = q;
       nisDof[k] = 1;
-      logLik -= 0.5 * (LOG_2PI + Math.log(s) + q);
+      // log-likelihood term -(log 2pi + log S + NIS)/2. log S is accumulated as a product, flushed
+      // through Math.log when it leaves [1e-200, 1e200] (no overflow or underflow for S in
+      // [1e-100, 1e100]; other S are logged directly), to keep Math.log out of the per-sample path.
+      sumNis += q;
+      if (s > 1e-100 && s < 1e100) {
+        prodS *= s;
+        if (!(prodS < 1e200 && prodS > 1e-200)) {
+          sumLogS += Math.log(prodS);
+          prodS = 1;
+        }
+      } else {
+        sumLogS += Math.log(s);
+      }
       nObs++;
       a0 = x0 + k0 * v;
       a1 = x1 + k1 * v;
@@ -90,7 +102,7 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
     xFilt[xo] = a0; xFilt[xo + 1] = a1;
     PFilt[po] = c00; PFilt[po + 1] = c01; PFilt[po + 2] = c01; PFilt[po + 3] = c11;
   }
-  res.logLik = logLik;
+  res.logLik = -0.5 * (nObs * LOG_2PI + sumLogS + Math.log(prodS) + sumNis);
   res.nObserved = nObs;
 }
 
@@ -108,7 +120,7 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
   let a0 = 0, a1 = 0, a2 = 0;
   let c00 = 0, c01 = 0, c02 = 0, c11 = 0, c12 = 0, c22 = 0;
   let lastDt = NaN;
-  let logLik = 0;
+  let sumNis = 0, sumLogS = 0, prodS = 1;
   let nObs = 0;
   for (let k = 0; k < T; k++) {
     let x0: number, x1: number, x2: number;
@@ -166,7 +178,19 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
       const q = (v * v) / s;
       nis[k] = q;
       nisDof[k] = 1;
-      logLik -= 0.5 * (LOG_2PI + Math.log(s) + q);
+      // log-likelihood term -(log 2pi + log S + NIS)/2. log S is accumulated as a product, flushed
+      // through Math.log when it leaves [1e-200, 1e200] (no overflow or underflow for S in
+      // [1e-100, 1e100]; other S are logged directly), to keep Math.log out of the per-sample path.
+      sumNis += q;
+      if (s > 1e-100 && s < 1e100) {
+        prodS *= s;
+        if (!(prodS < 1e200 && prodS > 1e-200)) {
+          sumLogS += Math.log(prodS);
+          prodS = 1;
+        }
+      } else {
+        sumLogS += Math.log(s);
+      }
       nObs++;
       a0 = x0 + k0 * v; a1 = x1 + k1 * v; a2 = x2 + k2 * v;
       // Joseph form: A = I - K H; B = A P; P = B A' + K R K'
@@ -188,6 +212,6 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
     PFilt[po + 3] = c01; PFilt[po + 4] = c11; PFilt[po + 5] = c12;
     PFilt[po + 6] = c02; PFilt[po + 7] = c12; PFilt[po + 8] = c22;
   }
-  res.logLik = logLik;
+  res.logLik = -0.5 * (nObs * LOG_2PI + sumLogS + Math.log(prodS) + sumNis);
   res.nObserved = nObs;
 }

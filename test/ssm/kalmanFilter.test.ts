@@ -152,6 +152,22 @@ describe('kalmanFilter: the scalar per-axis kernels agree with the general dense
   }
 });
 
+describe('log-likelihood accumulation in the scalar kernels stays exact over extreme scales', () => {
+  for (const scale of [1e-110, 1e-60, 1, 1e60, 1e110]) {
+    it(`innovation variances around ${scale}: kernel and general log-likelihood agree to 1e-12 relative`, () => {
+      const model = makeAxisModel({ id: 'cv', kind: 'constant-velocity' }, {
+        axis: 'horizontal', qIntensity: scale, measurementVarM2: scale, P0: Float64Array.of(scale, 0, 0, scale),
+      });
+      const t = irregularTimes(3000, 0.5, 1.5, 91);
+      const { z } = simulate(model, t, 92);
+      const a = kalmanFilter(model, z, t, { kernel: 'auto' }).logLik;
+      const g = kalmanFilter(model, z, t, { kernel: 'general' }).logLik;
+      expect(Number.isFinite(a)).toBe(true);
+      expect(Math.abs(a - g)).toBeLessThan(1e-12 * Math.max(1, Math.abs(g)));
+    });
+  }
+});
+
 describe('covariances stay symmetric positive semi-definite (property over seeded random models)', () => {
   it('40 random models and data sets: every P_pred, P_filt, P_smooth symmetric with eigenvalues >= -1e-12 * scale', () => {
     const r = rng(2024);
