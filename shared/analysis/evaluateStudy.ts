@@ -103,6 +103,12 @@ export function evaluateStudy(
   const delaySensitivity = options.skipDelaySweep ? [] : sweepDelays(rows, prepared, settings);
   const flags: StudyEvaluation['flags'] = [];
   for (const p of prepared) for (const f of p.flags) flags.push({ trialId: p.trial.id, flag: f });
+  const median = (v: number[]): number => {
+    const f = v.filter(Number.isFinite).sort((a, b) => a - b);
+    return f.length === 0 ? NaN : f.length % 2 ? f[(f.length - 1) / 2] : (f[f.length / 2 - 1] + f[f.length / 2]) / 2;
+  };
+  let usableRows = 0;
+  for (let r = 0; r < rows.n; r++) usableRows += mat.usable[r];
   return {
     version: FORECATCH_VERSION,
     settingsHash: stableHash(settings),
@@ -115,6 +121,15 @@ export function evaluateStudy(
     delaySensitivity,
     failed: options.failed ?? [],
     flags,
+    reconstruction: {
+      trials: prepared.length,
+      qIntensityMedian: median(prepared.map((p) => p.noise.qIntensity)),
+      measurementSdMmMedian: median(prepared.map((p) => Math.sqrt(p.noise.measurementVarM2) * 1000)),
+      noiseFitted: prepared.some((p) => p.noise.fitted),
+      usableRows,
+      totalRows: rows.n,
+      excludedTrials: prepared.filter((p) => p.trial.excluded).length + (options.failed ?? []).filter((f) => f.trial.excluded).length,
+    },
   };
 }
 

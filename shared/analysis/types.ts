@@ -384,4 +384,20 @@ export interface StudyEvaluation {
   failed: FailedTrial[];
   /** Per-trial flags gathered for reports (trial id, flag). */
   flags: { trialId: string; flag: TrialFlag }[];
+  /** What the reconstruction used, for the methods text. */
+  reconstruction: {
+    /** Trials prepared. */
+    trials: number;
+    /** Median process-noise spectral density over trials (m^2/s^5 for white jerk). */
+    qIntensityMedian: number;
+    /** Median measurement-noise SD over trials, mm. */
+    measurementSdMmMedian: number;
+    /** True when the noise was fitted per trial by maximum likelihood. */
+    noiseFitted: boolean;
+    /** Usable trial x muscle rows entering the statistics, and rows in total. */
+    usableRows: number;
+    totalRows: number;
+    /** Trials excluded by the user (in the study). */
+    excludedTrials: number;
+  };
 }

@@ -91,7 +91,9 @@ export function simulateRailTrial(
   }
   const onsetBase = o.emgActive ? subjectOnsetS(subject, motion) : NaN;
   const onsetS: Record<string, number> = {};
-  const E = Math.floor(endS * o.emgRateHz) + 1;
+  // whole marker frames of EMG samples when the rates allow it (so a C3D file can hold both)
+  const ratio = o.emgRateHz / o.markerRateHz;
+  const E = Number.isInteger(ratio) ? T * ratio : Math.floor(endS * o.emgRateHz) + 1;
   const signals: SignalChannel[] = [];
   o.muscles.forEach((muscle, mi) => {
     const lag = mi === 0 ? 0 : 0.005 + 0.01 * rng.uniform();
