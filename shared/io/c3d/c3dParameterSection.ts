@@ -96,15 +96,15 @@ export class C3dParameterSectionBuilder {
    *
    * @param groupId - id of the owning group
    * @param name - base parameter name
-   * @param list - strings or numbers
-   * @param type - for numbers: 2 (int16) or 4 (float)
+   * @param list - strings (type -1) or numbers (type 2 or 4)
+   * @param type - -1 char, 2 int16, 4 float
    */
-  list(groupId: number, name: string, list: string[] | number[], type: 2 | 4 = 4): void {
+  list(groupId: number, name: string, list: readonly string[] | readonly number[], type: -1 | 2 | 4): void {
     const chunks = Math.max(1, Math.ceil(list.length / C3D_MAX_DIMENSION));
     for (let k = 0; k < chunks; k++) {
       const part = list.slice(k * C3D_MAX_DIMENSION, (k + 1) * C3D_MAX_DIMENSION);
       const n = k === 0 ? name : `${name}${k + 1}`;
-      if (typeof list[0] === 'string' || list.length === 0) this.chars(groupId, n, part as string[]);
+      if (type === -1) this.chars(groupId, n, part.map(String));
       else this.numbers(groupId, n, type, part as number[], [part.length]);
     }
   }

@@ -82,6 +82,18 @@ describe('readC3d: processor types and storage forms', () => {
     });
   }
 
+  it('reads the same values from a view at an unaligned byte offset (no zero-copy fast path)', () => {
+    for (const processor of ['intel', 'sgi'] as const) {
+      const bytes = buildC3dBytes(smallSpec(processor, true));
+      const host = new Uint8Array(bytes.length + 3);
+      host.set(bytes, 1);
+      const aligned = readC3d(bytes, 'a.c3d');
+      const shifted = readC3d(host.subarray(1, 1 + bytes.length), 'b.c3d');
+      expect(Array.from(shifted.points.xyz)).toEqual(Array.from(aligned.points.xyz));
+      expect(Array.from(shifted.analog.channels[1].values)).toEqual(Array.from(aligned.analog.channels[1].values));
+    }
+  });
+
   it('honours header pointers: parameter section in block 3, data several blocks after it', () => {
     const spec = smallSpec('intel', false, { parameterBlock: 3, gapBlocks: 3 });
     const bytes = buildC3dBytes(spec);

@@ -148,6 +148,24 @@ describe('writeC3d', () => {
     expectSameRecording(c3dToRecording(c3d), rec);
   });
 
+  it('writes analog-only recordings (no markers) with one sample per frame at the channels\' rate', () => {
+    const values = Float32Array.from({ length: 999 }, (_, i) => Math.cos(i / 10));
+    const rec: Recording = {
+      source: 'emg only (invented)',
+      format: 'c3d',
+      signals: [{ label: 'EMG', units: 'uV', rateHz: 1500, startS: 2, values }],
+      events: [],
+      warnings: [],
+      meta: {},
+    };
+    const c3d = readC3d(writeC3d(rec), 'emg.c3d');
+    expect([c3d.points.labels.length, c3d.points.rateHz, c3d.analog.samplesPerFrame, c3d.firstFrame]).toEqual([0, 1500, 1, 3001]);
+    const back = c3dToRecording(c3d);
+    expect(back.markers).toBeUndefined();
+    expect(back.signals.map((s) => [s.label, s.units, s.rateHz, s.startS])).toEqual([['EMG', 'uV', 1500, 2]]);
+    expect(Array.from(back.signals[0].values)).toEqual(Array.from(values));
+  });
+
   it('writes metres or centimetres when asked', () => {
     const rec = railTrial(30);
     for (const pointUnits of ['m', 'cm'] as const) {
