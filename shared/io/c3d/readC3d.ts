@@ -1,7 +1,6 @@
 /**
  * Reads a C3D file (header, parameters, point and analog data, events) from its bytes.
  */
-import { ParseError } from '../../errors';
 import type { ImportWarning } from '../../recording/types';
 import type { C3dAnalogChannel, C3dEvent, C3dFile, C3dGroup } from './c3dTypes';
 import { C3dNumberReader } from './c3dNumbers';
@@ -64,6 +63,7 @@ function perChannel(values: number[], n: number, fallback: number): Float64Array
  * @param fileName - file name for messages
  * @returns the decoded file
  * @throws ParseError when the file is not a readable C3D file (naming the byte offset and what was expected)
+ * @throws TypeError when `bytes` is not a Uint8Array
  * @see C3D file format user guide, c3d.org
  */
 export function readC3d(bytes: Uint8Array, fileName: string): C3dFile {
@@ -106,9 +106,6 @@ export function readC3d(bytes: Uint8Array, fileName: string): C3dFile {
   const pointLabels = getC3dStringList(groups, 'POINT', 'LABELS');
   if (pointLabels.length < P && P > 0) {
     warnings.push({ code: 'C3D_POINT_LABELS', message: `${fileName}: ${pointLabels.length} POINT:LABELS for ${P} points; the rest named POINT<n>` });
-  }
-  if (layout.firstFrame < 1) {
-    throw new ParseError({ file: fileName, byteOffset: 6 }, 'a first frame number of at least 1', String(layout.firstFrame));
   }
   return {
     fileName,

@@ -154,6 +154,11 @@ export function resolveC3dLayout(
     warn('C3D_FRAME_COUNT', `POINT:FRAMES ${framesParam} differs from header frames ${header.firstFrame}-${header.lastFrame} (${declaredFrames}); using the header`);
   }
 
+  if (firstFrame < 1) {
+    warn('C3D_FIRST_FRAME', `first frame ${firstFrame} (header word 4) is below 1; numbered from 1`);
+    firstFrame = 1;
+  }
+
   const frameWords = 4 * pointCount + analogChannels * spf;
   const frameBytes = frameWords * wordBytes;
   let frameCount = declaredFrames;

@@ -310,6 +310,15 @@ describe('readC3d: bad input', () => {
     expect(parseError(b).byteOffset).toBe(16);
   });
 
+  it('numbers frames from 1 with a warning when header word 4 says frame 0', () => {
+    const spec = smallSpec('intel', false);
+    spec.header.firstFrame = 0;
+    spec.header.lastFrame = 2;
+    const c3d = readC3d(buildC3dBytes(spec), 'zero.c3d');
+    expect([c3d.firstFrame, c3d.frameCount]).toEqual([1, 3]);
+    expect(c3d.warnings.map((w) => w.code)).toEqual(['C3D_FIRST_FRAME']);
+  });
+
   it('gives a partial result with a warning when the file ends inside the data, and a ParseError when no frame is complete', () => {
     const dataStart = (readC3d(good, 'g').header.dataStartBlock - 1) * 512;
     const frameBytes = (8 + 4) * 2;
