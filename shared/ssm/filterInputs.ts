@@ -2,7 +2,7 @@
  * Argument checks shared by the filter entry points (internal to `shared/ssm/`).
  */
 import { DimensionMismatchError } from '../errors';
-import { validateModel, type StateSpaceModel } from './stateSpaceModel';
+import { validateModel, type ObservationPart } from './stateSpaceModel';
 
 /**
  * Checks model, observations and sample times before filtering.
@@ -10,7 +10,7 @@ import { validateModel, type StateSpaceModel } from './stateSpaceModel';
  * @throws RangeError for zero-length input, non-finite or non-increasing times, or infinite observations
  * @throws DimensionMismatchError when z or timesS do not match the model's m
  */
-export function checkFilterInputs(model: StateSpaceModel, z: Float64Array, timesS: Float64Array): number {
+export function checkFilterInputs(model: ObservationPart, z: Float64Array, timesS: Float64Array): number {
   validateModel(model);
   if (!(z instanceof Float64Array)) throw new TypeError('z must be a Float64Array (T*m, NaN for missing)');
   if (!(timesS instanceof Float64Array)) throw new TypeError('timesS must be a Float64Array (T, strictly increasing)');

@@ -2,7 +2,7 @@
  * Public API of Forecatch's state-space engine: models, Kalman filter, RTS smoother, dynamics
  * hypotheses.
  */
-export type { StateSpaceModel, TimeInvariantModelSpec } from './stateSpaceModel';
+export type { StateSpaceModel, ObservationPart, TimeInvariantModelSpec } from './stateSpaceModel';
 export { validateModel, timeInvariantModel, localLevelModel } from './stateSpaceModel';
 export type { FilterResult, KalmanFilterOptions } from './kalmanFilter';
 export { kalmanFilter } from './kalmanFilter';
@@ -19,3 +19,6 @@ export type { AxisWorkspace } from './filterSmoothAxis';
 export { createAxisWorkspace, filterSmoothAxis } from './filterSmoothAxis';
 export type { NoiseModelBuilder, NoiseFitOptions, NoiseFit } from './estimateNoise';
 export { fitNoiseEm, fitNoiseMle } from './estimateNoise';
+export type { NonlinearStateSpaceModel } from './extendedKalmanFilter';
+export { extendedKalmanFilter, extendedRtsSmooth } from './extendedKalmanFilter';
+export { makeDragAxisModel } from './dragModel';

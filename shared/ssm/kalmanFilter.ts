@@ -2,7 +2,7 @@
  * Kalman filter for a {@link StateSpaceModel} with per-step time steps and missing observations.
  */
 import { NotPositiveDefiniteError } from '../errors';
-import type { StateSpaceModel } from './stateSpaceModel';
+import type { ObservationPart, StateSpaceModel } from './stateSpaceModel';
 import { checkFilterInputs } from './filterInputs';
 import { choleskyLower, choleskySolveInPlace, logDetFromCholesky, matMul, matMulTransB, symmetrize } from './denseLinalg';
 import { filterAxis2, filterAxis3 } from './axisFilter';
@@ -46,7 +46,13 @@ export interface KalmanFilterOptions {
 
 const LOG_2PI = Math.log(2 * Math.PI);
 
-/** Allocates the per-sample output arrays of a filter run. */
+/**
+ * Allocates the per-sample output arrays of a filter run (zero-filled, logLik 0).
+ * @param n - number of states
+ * @param m - number of observed components
+ * @param timesS - sample times, s (kept by reference; its length is T)
+ * @returns an empty {@link FilterResult} for T samples
+ */
 export function allocateFilterResult(n: number, m: number, timesS: Float64Array): FilterResult {
   const T = timesS.length;
   return {
@@ -101,8 +107,24 @@ export function kalmanFilter(
   return res;
 }
 
-/** The general dense filter (any n, m); fills `res` in place. */
-function filterGeneral(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
+/**
+ * Prediction of one step for the general filter: writes the predicted mean (n) at `xOut[xOutOff]` from
+ * the previous filtered mean at `xPrev[xPrevOff]`, and the step's transition (or Jacobian) F and
+ * process noise Q. Used by the extended Kalman filter; internal to `shared/ssm/`.
+ */
+export type PredictHook = (
+  dtS: number, xPrev: Float64Array, xPrevOff: number, xOut: Float64Array, xOutOff: number, F: Float64Array, Q: Float64Array,
+) => void;
+
+/**
+ * The general dense filter (any n, m); fills `res` in place. Without `predict`, the step is the
+ * linear x = F x + u of `model.discretize` (re-discretised only when the step changes).
+ * Internal to `shared/ssm/` (inputs already checked).
+ */
+export function filterGeneral(
+  model: ObservationPart & { discretize?: StateSpaceModel['discretize'] }, z: Float64Array, timesS: Float64Array, res: FilterResult,
+  predict?: PredictHook,
+): void {
   const { n, m, H, R } = model;
   const T = timesS.length;
   const nn = n * n;
@@ -137,17 +159,22 @@ function filterGeneral(model: StateSpaceModel, z: Float64Array, timesS: Float64A
       PPred.set(model.P0, 0);
     } else {
       const dt = timesS[k] - timesS[k - 1];
-      if (dt !== lastDt) {
-        model.discretize(dt, F, u, Q);
-        lastDt = dt;
-      }
       const xp = xo - n;
       const pp = po - nn;
-      // x_k|k-1 = F x_k-1|k-1 + u
-      for (let i = 0; i < n; i++) {
-        let s = u[i];
-        for (let j = 0; j < n; j++) s += F[i * n + j] * xFilt[xp + j];
-        xPred[xo + i] = s;
+      if (predict) {
+        // extended filter: x_k|k-1 = f(x_k-1|k-1), F = df/dx there
+        predict(dt, xFilt, xp, xPred, xo, F, Q);
+      } else {
+        if (dt !== lastDt) {
+          model.discretize!(dt, F, u, Q);
+          lastDt = dt;
+        }
+        // x_k|k-1 = F x_k-1|k-1 + u
+        for (let i = 0; i < n; i++) {
+          let s = u[i];
+          for (let j = 0; j < n; j++) s += F[i * n + j] * xFilt[xp + j];
+          xPred[xo + i] = s;
+        }
       }
       // P_k|k-1 = F P F' + Q
       matMul(F, 0, PFilt, pp, FP, 0, n, n, n);

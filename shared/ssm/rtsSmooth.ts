@@ -27,7 +27,12 @@ export interface RtsSmoothOptions {
   kernel?: 'auto' | 'general';
 }
 
-/** Allocates the per-sample output arrays of a smoother run. */
+/**
+ * Allocates the per-sample output arrays of a smoother run (PLag block 0 set to NaN: no predecessor).
+ * @param n - number of states
+ * @param T - number of samples
+ * @returns an empty {@link SmoothResult}
+ */
 export function allocateSmoothResult(n: number, T: number): SmoothResult {
   const PLag = new Float64Array(T * n * n);
   PLag.fill(NaN, 0, n * n);
@@ -76,8 +81,19 @@ export function rtsSmooth(model: StateSpaceModel, filtered: FilterResult, opts: 
   return out;
 }
 
-/** The general dense smoother; fills `out` in place. */
-function smoothGeneral(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
+/**
+ * Supplies the transition (or, for the extended smoother, the Jacobian) F of the step from sample k
+ * to k+1. Internal to `shared/ssm/`.
+ */
+export type TransitionHook = (k: number, dtS: number, F: Float64Array) => void;
+
+/**
+ * The general dense smoother; fills `out` in place. Without `transitionAt`, F comes from
+ * `model.discretize` (re-discretised only when the step changes). Internal to `shared/ssm/`.
+ */
+export function smoothGeneral(
+  model: { discretize?: StateSpaceModel['discretize'] }, f: FilterResult, out: SmoothResult, transitionAt?: TransitionHook,
+): void {
   const { n, length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
   const { xSmooth, PSmooth, PLag } = out;
   const nn = n * n;
@@ -95,8 +111,10 @@ function smoothGeneral(model: StateSpaceModel, f: FilterResult, out: SmoothResul
   PSmooth.set(PFilt.subarray(last * n, last * n + nn), last * n);
   for (let k = T - 2; k >= 0; k--) {
     const dt = timesS[k + 1] - timesS[k];
-    if (dt !== lastDt) {
-      model.discretize(dt, F, u, Q);
+    if (transitionAt) {
+      transitionAt(k, dt, F);
+    } else if (dt !== lastDt) {
+      model.discretize!(dt, F, u, Q);
       lastDt = dt;
     }
     const xo = k * n;

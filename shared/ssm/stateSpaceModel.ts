@@ -34,13 +34,16 @@ export interface StateSpaceModel {
   P0: Float64Array;
 }
 
+/** The parts of a model that do not depend on the dynamics: sizes, observation and prior. */
+export type ObservationPart = Pick<StateSpaceModel, 'n' | 'm' | 'H' | 'R' | 'x0' | 'P0'>;
+
 /**
  * Checks the array sizes of a model against its `n` and `m`.
  * @param model - the model to check
  * @throws DimensionMismatchError naming the first array whose length disagrees
  * @throws RangeError when n or m is not a positive integer
  */
-export function validateModel(model: StateSpaceModel): void {
+export function validateModel(model: ObservationPart): void {
   const { n, m } = model;
   if (!Number.isInteger(n) || !(n >= 1)) throw new RangeError(`state dimension n must be a positive integer, got ${n}`);
   if (!Number.isInteger(m) || !(m >= 1)) throw new RangeError(`observation dimension m must be a positive integer, got ${m}`);
