@@ -56,7 +56,7 @@ interface MemoryPeak {
 }
 
 /** Samples memory every 10 ms while `work` runs; returns the peaks above the baseline taken just before. */
-async function withMemoryPeak<T>(work: () => Promise<T>): Promise<{ value: T; ms: number; peak: MemoryPeak }> {
+async function withMemoryPeak<T>(work: () => Promise<T>): Promise<{ value: T; ms: number; cpuMs: number; peak: MemoryPeak }> {
   const gc = (globalThis as { gc?: () => void }).gc;
   gc?.();
   const base = process.memoryUsage();
@@ -69,11 +69,13 @@ async function withMemoryPeak<T>(work: () => Promise<T>): Promise<{ value: T; ms
   };
   const timer = setInterval(sample, 10);
   const t0 = performance.now();
+  const cpu0 = process.cpuUsage();
   const value = await work();
   const ms = performance.now() - t0;
+  const cpu = process.cpuUsage(cpu0);
   clearInterval(timer);
   sample();
-  return { value, ms, peak };
+  return { value, ms, cpuMs: (cpu.user + cpu.system) / 1000, peak };
 }
 
 const mb = (b: number) => (b / 1e6).toFixed(1);
@@ -116,13 +118,14 @@ export const suite: BenchSuite = {
       const readRows = rec.markers?.frameCount ?? 0;
       if (readRows !== rows) throw new Error(`read ${readRows} rows, wrote ${rows}`);
 
-      const line = (name: string, ms: number, n: number, peak: MemoryPeak) =>
-        `| ${name.padEnd(42)} | ${(ms / 1000).toFixed(2).padStart(7)} | ${mb((size / ms) * 1000).padStart(7)} | ${(n ? ((n / ms) * 1000) / 1e3 : 0).toFixed(0).padStart(9)} | ${mb(peak.rssBytes).padStart(9)} | ${mb(peak.heapPlusBuffersBytes).padStart(11)} | ${(fc.ms / ms).toFixed(2).padStart(12)} |`;
-      console.log(`| ${'step'.padEnd(42)} | time s  | MB/s    | krows/s   | peak rss+ | peak heap+ab | Forecatch / this |`);
-      console.log(`|${'-'.repeat(44)}|---------|---------|-----------|-----------|-------------|------------------|`);
-      console.log(line('fs read stream (bytes only)', fsRead.ms, 0, fsRead.peak));
-      console.log(line('papaparse Node stream (rows of strings)', papa.ms, papa.value - 1, papa.peak));
-      console.log(line('Forecatch readRecordingFile (Float64Array)', fc.ms, readRows, fc.peak));
+      const line = (name: string, r: { ms: number; cpuMs: number; peak: MemoryPeak }, n: number) =>
+        `| ${name.padEnd(42)} | ${(r.ms / 1000).toFixed(2).padStart(6)} | ${(r.cpuMs / 1000).toFixed(2).padStart(6)} | ${mb((size / r.ms) * 1000).padStart(7)} | ${(n ? ((n / r.ms) * 1000) / 1e3 : 0).toFixed(0).padStart(7)} | ${mb(r.peak.rssBytes).padStart(9)} | ${mb(r.peak.heapPlusBuffersBytes).padStart(12)} | ${(fc.ms / r.ms).toFixed(2).padStart(10)} | ${(fc.cpuMs / r.cpuMs).toFixed(2).padStart(9)} |`;
+      console.log(`| ${'step'.padEnd(42)} | wall s | cpu s  | MB/s    | krows/s | peak rss+ | peak heap+ab | wall ratio | cpu ratio |`);
+      console.log(`|${'-'.repeat(44)}|--------|--------|---------|---------|-----------|--------------|------------|-----------|`);
+      console.log(line('fs read stream (bytes only)', fsRead, 0));
+      console.log(line('papaparse Node stream (rows of strings)', papa, papa.value - 1));
+      console.log(line('Forecatch readRecordingFile (Float64Array)', fc, readRows));
+      console.log('ratios: Forecatch time / the row\'s time (wall clock and process CPU time; CPU time is steadier on a shared machine)');
       console.log(`parsed numeric data: ${mb(numericBytes)} MB (${rec.markers?.markers.length} markers x 3 x ${readRows} rows x 8 bytes)`);
       console.log(`peak memory / parsed numeric data: rss ${(fc.peak.rssBytes / numericBytes).toFixed(2)}x, heapUsed+arrayBuffers ${(fc.peak.heapPlusBuffersBytes / numericBytes).toFixed(2)}x (target < 2x)`);
     } finally {

@@ -24,6 +24,8 @@ export interface ColumnPlan {
   timeSlot: number;
   fixedRate?: { rateHz: number; startS: number };
   markers: { label: string; slots: [number, number, number] }[];
+  /** The markers' x, y, z slots, flattened (3 per marker), for the hot loop. */
+  markerSlots: Int32Array;
   markerSourceUnits: string;
   channels: { label: string; units: string; slot: number }[];
   /** Display name of every source column, for messages. */
@@ -185,6 +187,7 @@ export function planColumns(fileName: string, d: DelimitedDialect, template?: Im
     timeSlot,
     fixedRate,
     markers,
+    markerSlots: Int32Array.from(markers.flatMap((m) => m.slots)),
     markerSourceUnits,
     channels,
     columnNames: names,

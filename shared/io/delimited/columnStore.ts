@@ -54,6 +54,14 @@ export class ColumnStore {
     this.capacity = newCapacity;
   }
 
+  /**
+   * The list of backing arrays, one per column; growth replaces its elements in place, so the list stays
+   * valid while each element is valid until the next growth. Write row i at index i.
+   */
+  columns(): Float64Array[] {
+    return this.cols;
+  }
+
   /** The backing array of column k (valid until the next growth); write row i at index i. */
   column(k: number): Float64Array {
     return this.cols[k];

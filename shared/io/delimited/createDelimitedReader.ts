@@ -8,7 +8,7 @@ import { ParseError } from '../../errors';
 import type { ImportWarning, Recording } from '../../recording/types';
 import type { ImportTemplate } from '../importTemplate';
 import { ColumnStore } from './columnStore';
-import { planColumns, SLOT_MARKER, SLOT_TIME, type ColumnPlan } from './columnPlan';
+import { planColumns, SLOT_MARKER, type ColumnPlan } from './columnPlan';
 import { sniffDelimited, type DelimitedDialect } from './sniffDelimited';
 import { buildDelimitedRecording } from './buildDelimitedRecording';
 
@@ -35,6 +35,9 @@ export interface DelimitedReader {
 
 const SNIFF_LINES = 64;
 const SNIFF_CHARS = 1 << 18;
+/** Longest line accepted (characters): a bound on the text held while waiting for a line break. */
+const MAX_LINE_CHARS = 1 << 24;
+const BATCH_CHARS = 1 << 16;
 
 /**
  * Creates a streaming reader for one delimited text file.
@@ -97,67 +100,108 @@ export function createDelimitedReader(fileName: string, opts: DelimitedReaderOpt
       const est = (opts.expectedBytes / Math.max(1, batchChars / rows.length)) * 1.05 + 16;
       s.reserve(Math.min(est, opts.expectedBytes / 2));
     }
-    for (let r = 0; r < rows.length && !stopped; r++) {
-      const cells = rows[r];
-      lineNo++;
-      if (cells.length !== n) {
-        if (cells.length === 1 && cells[0].trim() === '') continue;
-        fault(lineNo, -1, `${n} cells`, `${cells.length}`);
-        return;
-      }
-      const row = s.rows;
-      s.ensure(row + 1);
-      for (let k = 0; k < nSlots; k++) {
-        const col = p.srcCol[k];
-        const text = cells[col];
-        let v = text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text);
-        if (v !== v) {
-          const t = text.trim();
-          if (t !== '' && t !== 'NaN' && t.toLowerCase() !== 'nan') {
-            fault(lineNo, col, 'a number', `"${t.slice(0, 24)}"`);
-            return;
-          }
-        } else if (v === 0 && text.trim() === '') {
-          v = NaN;
-        } else if (v === Infinity || v === -Infinity) {
-          fault(lineNo, col, 'a finite number', `"${text.trim().slice(0, 24)}"`);
+    const cols = s.columns();
+    const srcCol = p.srcCol;
+    const divisor = p.divisor;
+    const kind = p.kind;
+    const first = p.timeSlot === 0 ? 1 : 0;
+    const timeCol = p.timeSlot === 0 ? srcCol[0] : -1;
+    const timeDiv = p.timeSlot === 0 ? divisor[0] : 1;
+    const markerSlots = p.markerSlots;
+    const nMarkers = markerSlots.length / 3;
+    let lastT = prevT;
+    let decimals = timeDecimals;
+    let missingSig = missingSignal;
+    try {
+      for (let r = 0; r < rows.length; r++) {
+        const cells = rows[r];
+        lineNo++;
+        if (cells.length !== n) {
+          if (cells.length === 1 && cells[0].trim() === '') continue;
+          fault(lineNo, -1, `${n} cells`, `${cells.length}`);
           return;
         }
-        v /= p.divisor[k];
-        if (p.kind[k] === SLOT_TIME) {
-          if (!(v > prevT)) {
-            fault(lineNo, col, v === v ? `a time stamp after ${prevT}` : 'a time stamp', `"${text.trim().slice(0, 24)}"`);
+        const row = s.rows;
+        if (row >= s.allocatedRows) s.ensure(row + 1);
+        if (timeCol >= 0) {
+          const text = cells[timeCol];
+          const t = (text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text)) / timeDiv;
+          if (!(t > lastT) || t === Infinity || (t === 0 && text.trim() === '')) {
+            const shown = `"${text.trim().slice(0, 24)}"`;
+            fault(lineNo, timeCol, t === t && text.trim() !== '' && t !== Infinity ? `a time stamp after ${lastT}` : 'a finite time stamp', shown);
             return;
           }
-          prevT = v;
+          lastT = t;
           const dot = comma ? text.indexOf(',') : text.indexOf('.');
           if (dot >= 0) {
-            const dec = /[eE]/.test(text) ? 17 : text.trimEnd().length - dot - 1;
-            if (dec > timeDecimals) timeDecimals = dec;
+            const dec = text.indexOf('e') >= 0 || text.indexOf('E') >= 0 ? 17 : text.trimEnd().length - dot - 1;
+            if (dec > decimals) decimals = dec;
           }
-        } else if (v !== v && p.kind[k] !== SLOT_MARKER) {
-          missingSignal++;
+          cols[0][row] = t;
         }
-        s.column(k)[row] = v;
-      }
-      for (let m = 0; m < p.markers.length; m++) {
-        const [a, b, c] = p.markers[m].slots;
-        const x = s.column(a)[row];
-        const y = s.column(b)[row];
-        const z = s.column(c)[row];
-        if (x !== x || y !== y || z !== z) {
-          s.column(a)[row] = NaN;
-          s.column(b)[row] = NaN;
-          s.column(c)[row] = NaN;
-          missingMarker[m]++;
+        for (let k = first; k < nSlots; k++) {
+          const col = srcCol[k];
+          const text = cells[col];
+          let v = text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text);
+          if (v !== v) {
+            const t = text.trim();
+            if (t !== '' && t !== 'NaN' && t.toLowerCase() !== 'nan') {
+              fault(lineNo, col, 'a number', `"${t.slice(0, 24)}"`);
+              return;
+            }
+            if (kind[k] !== SLOT_MARKER) missingSig++;
+          } else if (v === 0 && text.trim() === '') {
+            v = NaN;
+            if (kind[k] !== SLOT_MARKER) missingSig++;
+          } else if (v === Infinity || v === -Infinity) {
+            fault(lineNo, col, 'a finite number', `"${text.trim().slice(0, 24)}"`);
+            return;
+          }
+          cols[k][row] = v / divisor[k];
         }
+        for (let m = 0; m < nMarkers; m++) {
+          const ca = cols[markerSlots[3 * m]];
+          const cb = cols[markerSlots[3 * m + 1]];
+          const cc = cols[markerSlots[3 * m + 2]];
+          const x = ca[row];
+          const y = cb[row];
+          const z = cc[row];
+          if (x !== x || y !== y || z !== z) {
+            ca[row] = NaN;
+            cb[row] = NaN;
+            cc[row] = NaN;
+            missingMarker[m]++;
+          }
+        }
+        s.rows = row + 1;
       }
-      s.rows = row + 1;
+    } finally {
+      prevT = lastT;
+      timeDecimals = decimals;
+      missingSignal = missingSig;
     }
   };
 
   const parseLines = (text: string): string[][] =>
     Papa.parse<string[]>(text, { delimiter: dialect!.delimiter, newline: '\n' as const }).data as string[][];
+
+  /**
+   * Parses complete lines in slices of about BATCH_CHARS, so each slice's rows of strings die young
+   * (cheap for the garbage collector) instead of piling up per read-stream chunk.
+   */
+  const handleText = (text: string): void => {
+    if (text.length <= BATCH_CHARS || text.indexOf('"') >= 0) {
+      handleRows(parseLines(text), text.length);
+      return;
+    }
+    let start = 0;
+    while (start < text.length && !stopped) {
+      let end = start + BATCH_CHARS >= text.length ? text.length : text.indexOf('\n', start + BATCH_CHARS);
+      if (end < 0) end = text.length;
+      handleRows(parseLines(text.slice(start, end)), end - start);
+      start = end + 1;
+    }
+  };
 
   /** Cuts `pending` after its last line break outside quotes; returns the complete lines. */
   const takeCompleteLines = (): string | null => {
@@ -211,9 +255,15 @@ export function createDelimitedReader(fileName: string, opts: DelimitedReaderOpt
       if (stopped || chunk.length === 0) return;
       pending += normalize(chunk);
       sniffIfReady(false);
-      if (!dialect) return;
+      if (!dialect) {
+        if (pending.length > MAX_LINE_CHARS) throw new ParseError({ file: fileName, line: 1 }, `line breaks within the first ${MAX_LINE_CHARS} characters`, 'none');
+        return;
+      }
       const text = takeCompleteLines();
-      if (text !== null) handleRows(parseLines(text), text.length);
+      if (text !== null) handleText(text);
+      if (pending.length > MAX_LINE_CHARS) {
+        throw new ParseError({ file: fileName, line: lineNo + 1 }, `lines shorter than ${MAX_LINE_CHARS} characters`, 'no line break');
+      }
     },
     finish(): Recording {
       if (finished) throw new RangeError('finish() called twice');
@@ -221,7 +271,7 @@ export function createDelimitedReader(fileName: string, opts: DelimitedReaderOpt
       if (!stopped) {
         if (!dialect) sniffIfReady(true);
         const text = takeCompleteLines();
-        if (text !== null) handleRows(parseLines(text), text.length);
+        if (text !== null) handleText(text);
         if (!stopped && pending.trim().length > 0) {
           const rows = parseLines(pending);
           const last = rows[rows.length - 1];

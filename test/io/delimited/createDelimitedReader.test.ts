@@ -187,6 +187,13 @@ describe('createDelimitedReader: bad input', () => {
     expect(parseError(() => read('time,emg\n')).expected).toMatch(/numbers|data row/);
   });
 
+  it('bounds the text held while waiting for a line break', () => {
+    const r = createDelimitedReader('long.csv');
+    r.push('time,emg\n0,1\n0.1,2\n' + '1'.repeat(64) + ',');
+    expect(parseError(() => r.push('9'.repeat((1 << 24) + 1))).message).toMatch(/line 4: expected lines shorter than/);
+    expect(parseError(() => createDelimitedReader('blob.csv').push('x'.repeat(1 << 19))).line).toBe(1);
+  });
+
   it('needs two rows to determine the rate from a time column', () => {
     expect(parseError(() => read('time,emg\n0,1\n')).expected).toContain('at least two data rows');
   });
