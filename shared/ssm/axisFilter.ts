@@ -16,6 +16,10 @@ function notPd(k: number, t: number): NotPositiveDefiniteError {
   );
 }
 
+function notFinite(k: number, dtS: number): RangeError {
+  return new RangeError(`kalmanFilter: model.discretize(${dtS}) gave a non-finite F, u or Q (step to sample ${k})`);
+}
+
 /** Filter for n = 2, m = 1; fills `res` (already allocated and checked). */
 export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
   const T = timesS.length;
@@ -43,6 +47,7 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
         f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
         u0 = uw[0]; u1 = uw[1];
         q00 = Qw[0]; q01 = Qw[1]; q10 = Qw[2]; q11 = Qw[3];
+        if (!Number.isFinite(f00 + f01 + f10 + f11 + u0 + u1 + q00 + q01 + q10 + q11)) throw notFinite(k, dt);
         lastDt = dt;
       }
       // x_k|k-1 = F x + u
@@ -137,6 +142,8 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
         f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
         u0 = uw[0]; u1 = uw[1]; u2 = uw[2];
         q00 = Qw[0]; q01 = Qw[1]; q02 = Qw[2]; q10 = Qw[3]; q11 = Qw[4]; q12 = Qw[5]; q20 = Qw[6]; q21 = Qw[7]; q22 = Qw[8];
+        if (!Number.isFinite(f00 + f01 + f02 + f10 + f11 + f12 + f20 + f21 + f22 + u0 + u1 + u2 +
+          q00 + q01 + q02 + q10 + q11 + q12 + q20 + q21 + q22)) throw notFinite(k, dt);
         lastDt = dt;
       }
       // x_k|k-1 = F x + u

@@ -46,6 +46,11 @@ export interface KalmanFilterOptions {
 
 const LOG_2PI = Math.log(2 * Math.PI);
 
+function allFinite(a: Float64Array, off = 0, len = a.length): boolean {
+  for (let i = off; i < off + len; i++) if (!Number.isFinite(a[i])) return false;
+  return true;
+}
+
 /**
  * Allocates the per-sample output arrays of a filter run (zero-filled, logLik 0).
  * @param n - number of states
@@ -82,7 +87,8 @@ export function allocateFilterResult(n: number, m: number, timesS: Float64Array)
  * @param timesS - sample times in seconds, length T, strictly increasing
  * @param opts - kernel choice (see {@link KalmanFilterOptions})
  * @returns predicted and filtered means/covariances per sample, log-likelihood and NIS
- * @throws RangeError on zero-length input, non-increasing or non-finite times, or infinite observations
+ * @throws RangeError on zero-length input, non-increasing or non-finite times, infinite observations,
+ *   non-finite model entries, or a `discretize` that yields non-finite F, u or Q
  * @throws DimensionMismatchError when array sizes do not match the model
  * @throws NotPositiveDefiniteError when an innovation covariance S is not positive definite
  * @see Kalman (1960), J. Basic Eng. 82:35-45; Joseph form: Bucy & Joseph (1968); Bar-Shalom, Li &
@@ -164,9 +170,15 @@ export function filterGeneral(
       if (predict) {
         // extended filter: x_k|k-1 = f(x_k-1|k-1), F = df/dx there
         predict(dt, xFilt, xp, xPred, xo, F, Q);
+        if (!allFinite(F) || !allFinite(Q) || !allFinite(xPred, xo, n)) {
+          throw new RangeError(`extendedKalmanFilter: propagation over ${dt} s gave a non-finite state, Jacobian or Q (step to sample ${k})`);
+        }
       } else {
         if (dt !== lastDt) {
           model.discretize!(dt, F, u, Q);
+          if (!allFinite(F) || !allFinite(u) || !allFinite(Q)) {
+            throw new RangeError(`kalmanFilter: model.discretize(${dt}) gave a non-finite F, u or Q (step to sample ${k})`);
+          }
           lastDt = dt;
         }
         // x_k|k-1 = F x_k-1|k-1 + u

@@ -41,7 +41,7 @@ export type ObservationPart = Pick<StateSpaceModel, 'n' | 'm' | 'H' | 'R' | 'x0'
  * Checks the array sizes of a model against its `n` and `m`.
  * @param model - the model to check
  * @throws DimensionMismatchError naming the first array whose length disagrees
- * @throws RangeError when n or m is not a positive integer
+ * @throws RangeError when n or m is not a positive integer, or an entry of H, R, x0, P0 is not finite
  */
 export function validateModel(model: ObservationPart): void {
   const { n, m } = model;
@@ -57,6 +57,9 @@ export function validateModel(model: ObservationPart): void {
     if (!(arr instanceof Float64Array)) throw new TypeError(`model.${name} must be a Float64Array`);
     if (arr.length !== len) {
       throw new DimensionMismatchError(`model.${name} has ${arr.length} entries, expected ${len} for n=${n}, m=${m}`);
+    }
+    for (let i = 0; i < len; i++) {
+      if (!Number.isFinite(arr[i])) throw new RangeError(`model.${name}[${i}] is not finite (${arr[i]})`);
     }
   }
 }

@@ -63,6 +63,24 @@ describe('kalmanFilter: input checks give typed errors (never NaN output)', () =
   it('an infinite observation is a RangeError (NaN is the missing marker)', () => {
     expect(() => kalmanFilter(model, Float64Array.of(0, Infinity, 0), uniformTimes(3, 0.01))).toThrow(/infinite/);
   });
+  it('non-finite model entries, or a discretize that yields NaN, are RangeErrors (no NaN output)', () => {
+    const bad = { ...model, x0: Float64Array.of(NaN, 0) };
+    expect(() => kalmanFilter(bad, new Float64Array(3), uniformTimes(3, 0.01))).toThrow(RangeError);
+    for (const n of [1, 2, 3]) {
+      const nanModel = {
+        n, m: 1, H: Float64Array.from({ length: n }, (_, i) => (i === 0 ? 1 : 0)), R: Float64Array.of(1),
+        x0: new Float64Array(n), P0: Float64Array.from({ length: n * n }, (_, i) => (i % (n + 1) === 0 ? 1 : 0)),
+        discretize(dtS: number, F: Float64Array, _u: Float64Array, Q: Float64Array) {
+          F.fill(0); Q.fill(0);
+          for (let i = 0; i < n; i++) F[i * n + i] = 1;
+          Q[0] = dtS > 0.015 ? NaN : dtS;
+        },
+      };
+      const z = Float64Array.of(1, 2, 3);
+      const t = Float64Array.of(0, 0.01, 0.03);
+      for (const kernel of ['auto', 'general'] as const) expect(() => kalmanFilter(nanModel, z, t, { kernel })).toThrow(/non-finite/);
+    }
+  });
   it('an innovation covariance that is not positive definite is a NotPositiveDefiniteError', () => {
     const m0 = makeAxisModel({ id: 'cv', kind: 'constant-velocity' }, {
       axis: 'horizontal', qIntensity: 0, measurementVarM2: 0, P0: new Float64Array(4),
