@@ -11,7 +11,11 @@ function fmt(v: number | null, unit = ''): string {
   return v === null ? '-' : `${Number(v.toPrecision(10))}${unit}`;
 }
 
-/** Human-readable lines of a summary. */
+/**
+ * Human-readable lines of a summary.
+ * @param s - the summary
+ * @returns the text, without a final newline
+ */
 export function formatSummary(s: RecordingSummary): string {
   const out: string[] = [];
   out.push(`file        ${s.source}`);
@@ -35,6 +39,7 @@ export function formatSummary(s: RecordingSummary): string {
   return out.join('\n');
 }
 
+/** `forecatch inspect`: prints a recording's summary as text or one JSON object. */
 export const command: CliCommand = {
   name: 'inspect',
   summary: 'show what a recording file (C3D, EDF/BDF, CSV/TSV) holds',

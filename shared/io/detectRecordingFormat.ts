@@ -13,7 +13,8 @@ function asciiAt(bytes: Uint8Array, offset: number, text: string): boolean {
 
 /**
  * Detects the file family.
- * - C3D: byte 2 is 0x50 and byte 1, the 512-byte block of the parameter section, points inside the file.
+ * - C3D: byte 2 is 0x50 and byte 1, the 512-byte block of the parameter section, points inside the file
+ *   (and, when those bytes are given, the parameter section names processor type 84, 85 or 86).
  * - EDF: the version field is "0" padded with 7 spaces. BDF: byte 0xFF then "BIOSEMI".
  * - Delimited text: extension .csv/.tsv/.txt/.tab/.dat, or no zero byte in the first 4 KB.
  * Content wins over the extension; the extension decides only when the content is not recognised.
@@ -23,7 +24,11 @@ function asciiAt(bytes: Uint8Array, offset: number, text: string): boolean {
  * @returns the family, or null when neither content nor extension identifies it
  */
 export function detectRecordingFormat(fileName: string, bytes: Uint8Array, fileSize = bytes.length): RecordingFileKind | null {
-  if (bytes.length >= 2 && bytes[1] === 0x50 && bytes[0] >= 1 && (bytes[0] - 1) * 512 + 4 <= fileSize) return 'c3d';
+  if (bytes.length >= 2 && bytes[1] === 0x50 && bytes[0] >= 1 && (bytes[0] - 1) * 512 + 4 <= fileSize) {
+    // Where the parameter section's first bytes are at hand, its processor byte (83 + type) must be 84, 85 or 86.
+    const proc = (bytes[0] - 1) * 512 + 3;
+    if (proc >= bytes.length || (bytes[proc] >= 84 && bytes[proc] <= 86)) return 'c3d';
+  }
   if (bytes.length >= 8 && bytes[0] === 0xff && asciiAt(bytes, 1, 'BIOSEMI')) return 'bdf';
   if (asciiAt(bytes, 0, '0       ')) return 'edf';
   const ext = /\.([a-z0-9]+)$/i.exec(fileName)?.[1]?.toLowerCase() ?? '';

@@ -72,3 +72,18 @@ describe('readRecording: format detection by content', () => {
     expect(readRecording('sim.edf', bytes).signals[0].rateHz).toBe(100);
   });
 });
+
+describe('detectRecordingFormat: the C3D parameter pointer must be sane', () => {
+  it('needs the processor byte 84-86 at the parameter section when it lies within the given bytes', () => {
+    const b = new Uint8Array(1024);
+    b[0] = 2;
+    b[1] = 0x50;
+    expect(detectRecordingFormat('x', b)).not.toBe('c3d');
+    b[512 + 3] = 84;
+    expect(detectRecordingFormat('x', b)).toBe('c3d');
+    // Only the first bytes at hand (the Node reader passes 4 KB and the file size): pointer checked against the size.
+    const head = b.subarray(0, 16);
+    expect(detectRecordingFormat('x', head, 1024)).toBe('c3d');
+    expect(detectRecordingFormat('x', head, 100)).not.toBe('c3d');
+  });
+});

@@ -7,9 +7,11 @@ import type { ImportWarning } from '../../recording/types';
 import type { ColumnRef, ImportTemplate } from '../importTemplate';
 import type { DelimitedDialect } from './sniffDelimited';
 
-/** Slot kinds: what a numeric output column holds. */
+/** Slot kind: the time column. */
 export const SLOT_TIME = 0;
+/** Slot kind: one coordinate of a marker. */
 export const SLOT_MARKER = 1;
+/** Slot kind: a signal channel. */
 export const SLOT_SIGNAL = 2;
 
 /** The resolved mapping from source columns to numeric output slots. */

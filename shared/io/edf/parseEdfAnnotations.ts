@@ -24,6 +24,7 @@ export interface RecordAnnotations {
  * @param context - label stored as each event's context (the signal label)
  * @param timekeeping - true for the first annotation signal, whose first TAL keeps the record time
  * @param warn - receives a warning for each malformed TAL (the rest of the record is then skipped)
+ * @param where - file and record, for the warnings' messages
  * @returns the record start and the events with text
  */
 export function parseEdfAnnotations(

@@ -64,6 +64,8 @@ function ascii(bytes: Uint8Array, offset: number, length: number): string {
  * Reads and checks an EDF/BDF header.
  * @param bytes - the whole file
  * @param fileName - for messages
+ * @param warnings - receives RECORD_COUNT_UNKNOWN, TRUNCATED or TRAILING_BYTES when the record count and
+ *   the file size disagree
  * @returns the header, with `recordCount` reconciled against the file size
  * @throws ParseError at the byte offset of the first field that is not what the standard requires
  */
