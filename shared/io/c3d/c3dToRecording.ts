@@ -49,25 +49,18 @@ export function c3dToRecording(file: C3dFile): Recording {
   const markers: MarkerTrajectory[] = [];
   const missingSamples: number[] = [];
   for (let p = 0; p < pts.labels.length; p++) {
+    const t = pts.trajectories[p];
     const axes: Float64Array[] = [];
-    for (let a = 0; a < 3; a++) {
-      const src = pts.xyz.subarray((p * 3 + a) * F, (p * 3 + a + 1) * F);
+    for (const src of [t.x, t.y, t.z]) {
       const out = new Float64Array(F);
       for (let f = 0; f < F; f++) out[f] = src[f] * factor;
       axes.push(out);
     }
     let missing = 0;
-    const residual = pts.residual.subarray(p * F, (p + 1) * F);
-    for (let f = 0; f < F; f++) if (Number.isNaN(residual[f])) missing++;
+    for (let f = 0; f < F; f++) if (Number.isNaN(t.residual[f])) missing++;
     missingSamples.push(missing);
-    markers.push({
-      label: pts.labels[p],
-      x: axes[0],
-      y: axes[1],
-      z: axes[2],
-      residual: pts.residual.slice(p * F, (p + 1) * F),
-      cameraMask: pts.cameraMask.slice(p * F, (p + 1) * F),
-    });
+    // Residuals (file units) and camera masks are shared with the C3dFile, not copied.
+    markers.push({ label: pts.labels[p], x: axes[0], y: axes[1], z: axes[2], residual: t.residual, cameraMask: t.cameraMask });
   }
   const signals: SignalChannel[] = file.analog.channels.map((ch) => ({
     label: ch.label,

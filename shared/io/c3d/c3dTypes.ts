@@ -90,7 +90,19 @@ export interface C3dGroup {
   parameters: Map<string, C3dParameter>;
 }
 
-/** 3D point data, in the file's units (POINT:UNITS), laid out marker-major for cheap per-marker views. */
+/** One point's samples, in the file's units (POINT:UNITS), one array per quantity. */
+export interface C3dPointTrajectory {
+  /** Coordinates per frame; NaN where the sample is invalid (negative residual word). */
+  x: Float32Array;
+  y: Float32Array;
+  z: Float32Array;
+  /** Residual per frame (low byte of the residual word x |POINT:SCALE|); NaN where invalid. */
+  residual: Float32Array;
+  /** Camera contribution mask per frame (high byte of the residual word); 0 where invalid. */
+  cameraMask: Uint8Array;
+}
+
+/** 3D point data, in the file's units (POINT:UNITS). */
 export interface C3dPoints {
   labels: string[];
   descriptions: string[];
@@ -100,15 +112,8 @@ export interface C3dPoints {
   /** POINT:SCALE (negative: float storage). */
   scale: number;
   frameCount: number;
-  /**
-   * Coordinates: point p, axis a (0 x, 1 y, 2 z), frame f at index (p * 3 + a) * frameCount + f.
-   * Invalid samples (negative residual word) are NaN.
-   */
-  xyz: Float32Array;
-  /** Residual (low byte of the residual word x |POINT:SCALE|) at p * frameCount + f; NaN where invalid. */
-  residual: Float32Array;
-  /** Camera contribution mask (high byte of the residual word) at p * frameCount + f; 0 where invalid. */
-  cameraMask: Uint8Array;
+  /** One trajectory per point, in label order, each `frameCount` long. */
+  trajectories: C3dPointTrajectory[];
 }
 
 /** One analog channel, scaled to physical units. */

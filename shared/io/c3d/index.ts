@@ -12,6 +12,7 @@ export type {
   C3dHeaderEvent,
   C3dParameter,
   C3dPoints,
+  C3dPointTrajectory,
   C3dProcessor,
 } from './c3dTypes';
 export { C3D_PROCESSOR_BYTE } from './c3dTypes';

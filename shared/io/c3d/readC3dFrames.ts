@@ -7,20 +7,18 @@
  * Float32Array scratch block (integer words, byte swapping, DEC floats, unsigned analog; every 16-bit word
  * and every stored float32 is exact in float32). The block is then transposed marker by marker, so reads
  * stay inside a cache-sized block and writes run sequentially along each output array. No allocation per
- * frame or sample.
+ * frame or sample. Outputs are one array per point and quantity rather than one large array: arrays of a
+ * few MB are served again from memory the allocator already holds when many files are read in a row,
+ * while very large arrays always cost fresh page faults.
  */
-import type { C3dProcessor } from './c3dTypes';
+import type { C3dPointTrajectory, C3dProcessor } from './c3dTypes';
 import type { C3dLayout } from './resolveC3dLayout';
 import { vaxFloatToNumber } from './c3dNumbers';
 
 /** Decoded frames, before labels are attached. */
 export interface C3dFrameData {
-  /** (p * 3 + axis) * frameCount + f, file units, NaN where invalid. */
-  xyz: Float32Array;
-  /** p * frameCount + f, file units, NaN where invalid. */
-  residual: Float32Array;
-  /** p * frameCount + f. */
-  cameraMask: Uint8Array;
+  /** One trajectory per point, file units, NaN where invalid. */
+  points: C3dPointTrajectory[];
   /** One array per channel, frameCount x samples per frame values, scaled. */
   analog: Float32Array[];
 }
@@ -61,12 +59,16 @@ export function readC3dFrames(
   const S = layout.analogSamplesPerFrame;
   const W = layout.frameWords;
   const isFloat = layout.storage === 'float';
-  const out: C3dFrameData = {
-    xyz: new Float32Array(P * 3 * F),
-    residual: new Float32Array(P * F),
-    cameraMask: new Uint8Array(P * F),
-    analog: [],
-  };
+  const out: C3dFrameData = { points: [], analog: [] };
+  for (let p = 0; p < P; p++) {
+    out.points.push({
+      x: new Float32Array(F),
+      y: new Float32Array(F),
+      z: new Float32Array(F),
+      residual: new Float32Array(F),
+      cameraMask: new Uint8Array(F),
+    });
+  }
   for (let c = 0; c < C; c++) out.analog.push(new Float32Array(F * S));
   if (F === 0 || W === 0) return out;
 
@@ -78,7 +80,6 @@ export function readC3dFrames(
   const frameBytes = W * layout.wordBytes;
   const params: BlockParams = {
     P,
-    F,
     C,
     S,
     W,
@@ -103,7 +104,6 @@ export function readC3dFrames(
 
 interface BlockParams {
   P: number;
-  F: number;
   C: number;
   S: number;
   W: number;
@@ -115,29 +115,25 @@ interface BlockParams {
 
 /** Moves frames f0 .. f0 + n - 1 from the frame-major block into the marker-major outputs. */
 function transposeBlock(block: Float32Array, n: number, f0: number, k: BlockParams, out: C3dFrameData): void {
-  const { P, F, C, S, W, coordScale, absScale } = k;
-  const { xyz, residual, cameraMask } = out;
+  const { P, C, S, W, coordScale, absScale } = k;
   for (let p = 0; p < P; p++) {
-    const ox = p * 3 * F + f0;
-    const oy = ox + F;
-    const oz = oy + F;
-    const oq = p * F + f0;
+    const { x, y, z, residual, cameraMask } = out.points[p];
     let b = 4 * p;
-    for (let j = 0; j < n; j++, b += W) {
+    for (let j = 0, f = f0; j < n; j++, f++, b += W) {
       const r = block[b + 3];
       if (r >= 0) {
-        xyz[ox + j] = block[b] * coordScale;
-        xyz[oy + j] = block[b + 1] * coordScale;
-        xyz[oz + j] = block[b + 2] * coordScale;
+        x[f] = block[b] * coordScale;
+        y[f] = block[b + 1] * coordScale;
+        z[f] = block[b + 2] * coordScale;
         const w = r & 0x7fff;
-        cameraMask[oq + j] = w >> 8;
-        residual[oq + j] = (w & 0xff) * absScale;
+        cameraMask[f] = w >> 8;
+        residual[f] = (w & 0xff) * absScale;
       } else {
         // Negative (or NaN) residual word: the sample is invalid.
-        xyz[ox + j] = NaN;
-        xyz[oy + j] = NaN;
-        xyz[oz + j] = NaN;
-        residual[oq + j] = NaN;
+        x[f] = NaN;
+        y[f] = NaN;
+        z[f] = NaN;
+        residual[f] = NaN;
       }
     }
   }

@@ -95,7 +95,8 @@ function mutate(src: Uint8Array, r: () => number): Uint8Array {
 }
 
 function typedBytes(c3d: C3dFile, rec: Recording): number {
-  let n = c3d.points.xyz.byteLength + c3d.points.residual.byteLength + c3d.points.cameraMask.byteLength;
+  let n = 0;
+  for (const t of c3d.points.trajectories) n += t.x.byteLength * 3 + t.residual.byteLength + t.cameraMask.byteLength;
   for (const ch of c3d.analog.channels) n += ch.values.byteLength;
   for (const g of c3d.groups.values()) for (const p of g.parameters.values()) n += p.values.byteLength + p.strings.length * 16;
   for (const m of rec.markers?.markers ?? []) n += m.x.byteLength * 3 + (m.residual?.byteLength ?? 0) + (m.cameraMask?.byteLength ?? 0);
@@ -120,7 +121,8 @@ describe('C3D fuzz: seeded mutations of valid files', () => {
         const rec = c3dToRecording(c3d);
         // Shapes agree with the counts the reader settled on.
         const F = c3d.frameCount;
-        if (c3d.points.xyz.length !== c3d.points.labels.length * 3 * F) failures.push(`case ${i}: xyz shape`);
+        if (c3d.points.trajectories.length !== c3d.points.labels.length) failures.push(`case ${i}: point count`);
+        for (const t of c3d.points.trajectories) if (t.x.length !== F || t.residual.length !== F) failures.push(`case ${i}: point shape`);
         for (const ch of c3d.analog.channels) if (ch.values.length !== F * c3d.analog.samplesPerFrame) failures.push(`case ${i}: analog shape`);
         // Counting guard: everything allocated stays within a fixed multiple of the input.
         const allocated = typedBytes(c3d, rec);

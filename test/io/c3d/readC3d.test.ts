@@ -8,6 +8,7 @@ import { ParseError } from '../../../shared/errors';
 import { readC3d, c3dToRecording, getC3dParameter, vaxFloatToNumber, numberToVaxFloat } from '../../../shared/io/c3d';
 import { buildC3dBytes, type FixtureProcessor, type FixtureRecord, type FixtureSpec } from './buildC3dBytes';
 import { smallSpec, SCALE } from './smallC3dSpec';
+import { flatPoints } from './flatPoints';
 
 describe('VAX F-floating conversion (DEC processor type)', () => {
   it('decodes values fixed by the format definition: value = (-1)^s x 0.1f x 2^(e - 128)', () => {
@@ -61,17 +62,18 @@ describe('readC3d: processor types and storage forms', () => {
       expect(getC3dParameter(c3d.groups, 'POINT', 'USED')!.locked).toBe(true);
       expect(getC3dParameter(c3d.groups, 'POINT', 'LABELS')!.description).toBe('marker names');
       const F = 3;
-      const at = (p: number, a: number, f: number): number => c3d.points.xyz[(p * 3 + a) * F + f];
+      const pts = flatPoints(c3d);
+      const at = (p: number, a: number, f: number): number => pts.xyz[(p * 3 + a) * F + f];
       // x = raw x POINT:SCALE in integer files; float files store the product.
       expect([at(0, 0, 0), at(0, 1, 0), at(0, 2, 0), at(0, 0, 2)]).toEqual([5, 10, -15, 6]);
       expect([at(1, 0, 0), at(1, 1, 2), at(1, 2, 2)]).toEqual([20, 25, 30]);
       expect([at(1, 0, 1), at(1, 1, 1), at(1, 2, 1)]).toEqual([NaN, NaN, NaN]);
       // Residual word (5 << 8) | 3: camera mask 5, residual 3 x |scale|.
-      expect(c3d.points.cameraMask[0]).toBe(5);
-      expect(c3d.points.residual[0]).toBe(3 * SCALE);
-      expect(c3d.points.residual[F + 1]).toBeNaN();
-      expect(c3d.points.cameraMask[F + 1]).toBe(0);
-      expect(c3d.points.residual[F + 0]).toBe(0);
+      expect(pts.cameraMask[0]).toBe(5);
+      expect(pts.residual[0]).toBe(3 * SCALE);
+      expect(pts.residual[F + 1]).toBeNaN();
+      expect(pts.cameraMask[F + 1]).toBe(0);
+      expect(pts.residual[F + 0]).toBe(0);
       // (raw - OFFSET) x SCALE x GEN_SCALE, samples of frame f at f * 2 + s.
       const [a, b] = c3d.analog.channels;
       expect([a.label, a.units, b.label, b.units]).toEqual(['EMG1', 'mV', 'FORCE', 'N']);
@@ -89,7 +91,7 @@ describe('readC3d: processor types and storage forms', () => {
       host.set(bytes, 1);
       const aligned = readC3d(bytes, 'a.c3d');
       const shifted = readC3d(host.subarray(1, 1 + bytes.length), 'b.c3d');
-      expect(Array.from(shifted.points.xyz)).toEqual(Array.from(aligned.points.xyz));
+      expect(Array.from(flatPoints(shifted).xyz)).toEqual(Array.from(flatPoints(aligned).xyz));
       expect(Array.from(shifted.analog.channels[1].values)).toEqual(Array.from(aligned.analog.channels[1].values));
     }
   });
@@ -101,7 +103,7 @@ describe('readC3d: processor types and storage forms', () => {
     const c3d = readC3d(bytes, 'moved.c3d');
     expect(c3d.header.dataStartBlock).toBe(7);
     expect(c3d.points.labels).toEqual(['BALL', 'HAND']);
-    expect(c3d.points.xyz[0]).toBe(5);
+    expect(c3d.points.trajectories[0].x[0]).toBe(5);
     expect(Array.from(c3d.analog.channels[0].values)).toEqual([0, 0.5, 0.5, 1, 1, 1.5]);
   });
 
@@ -114,7 +116,7 @@ describe('readC3d: processor types and storage forms', () => {
     });
     const c3d = readC3d(bad, 'start.c3d');
     expect(c3d.warnings.map((w) => w.code)).toEqual(['C3D_DATA_START']);
-    expect(c3d.points.xyz[0]).toBe(5);
+    expect(c3d.points.trajectories[0].x[0]).toBe(5);
   });
 
   it('reads ANALOG:FORMAT UNSIGNED integer words as 0..65535 (offset too)', () => {
