@@ -22,3 +22,5 @@ export { fitNoiseEm, fitNoiseMle } from './estimateNoise';
 export type { NonlinearStateSpaceModel } from './extendedKalmanFilter';
 export { extendedKalmanFilter, extendedRtsSmooth } from './extendedKalmanFilter';
 export { makeDragAxisModel } from './dragModel';
+export type { DragArrivalInput } from './predictArrivalDrag';
+export { predictArrivalDrag } from './predictArrivalDrag';

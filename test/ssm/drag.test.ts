@@ -4,6 +4,9 @@ import { extendedKalmanFilter, extendedRtsSmooth } from '../../shared/ssm/extend
 import { kalmanFilter } from '../../shared/ssm/kalmanFilter';
 import { rtsSmooth } from '../../shared/ssm/rtsSmooth';
 import { makeAxisModel, STANDARD_GRAVITY_MPS2 } from '../../shared/ssm/hypotheses';
+import { predictArrivalDrag } from '../../shared/ssm/predictArrivalDrag';
+import { predictArrival } from '../../shared/ssm/arrival';
+import { DimensionMismatchError } from '../../shared/errors';
 import { irregularTimes, maxAbsDiff, rng } from './helpers';
 
 const g0 = STANDARD_GRAVITY_MPS2;
@@ -73,5 +76,30 @@ describe('drag hypothesis: quadratic air drag, extended Kalman filter', () => {
     expect(() => makeDragAxisModel({ id: 'd', kind: 'drag' }, opts)).toThrow(RangeError);
     expect(() => makeDragAxisModel({ id: 'd', kind: 'drag', dragPerM: -1 }, opts)).toThrow(RangeError);
     expect(() => makeAxisModel({ id: 'd', kind: 'drag', dragPerM: 0.1 }, opts)).toThrow(/makeDragAxisModel/);
+  });
+});
+
+describe('predictArrivalDrag: arrival under gravity and quadratic drag by integration', () => {
+  it('from rest, the drop time equals the closed form t = (vt/g) acosh(exp(d g / vt^2)) (Taylor 2005, sec. 2.4)', () => {
+    const k = 0.03, d = 6;
+    const vt = Math.sqrt(g0 / k);
+    const a = predictArrivalDrag({ posM: d, velMps: 0, cov: new Float64Array(4), dragPerM: k, targetHeightM: 0 });
+    expect(a.reachable).toBe(true);
+    expect(Math.abs(a.timeS - (vt / g0) * Math.acosh(Math.exp((d * g0) / (vt * vt))))).toBeLessThan(1e-9);
+    expect(Math.abs(a.impactVelMps - -vt * Math.tanh((g0 * a.timeS) / vt))).toBeLessThan(1e-8);
+  });
+  it('with zero drag it equals the closed-form predictArrival, SD included (FACTS.md: 1.5 m drop in 0.55310 s)', () => {
+    const cov2 = Float64Array.of(1e-4, 1e-5, 1e-5, 4e-3);
+    const a = predictArrivalDrag({ posM: 1.5, velMps: 0, cov: cov2, dragPerM: 0, targetHeightM: 0 });
+    const b = predictArrival({ posM: 1.5, velMps: 0, accMps2: -g0, cov: Float64Array.of(1e-4, 1e-5, 0, 1e-5, 4e-3, 0, 0, 0, 0), targetHeightM: 0 });
+    expect(Math.abs(a.timeS - 0.5531)).toBeLessThanOrEqual(0.5e-5);
+    expect(Math.abs(a.timeS - b.timeS)).toBeLessThan(1e-9);
+    expect(Math.abs(a.sdS - b.sdS) / b.sdS).toBeLessThan(1e-6);
+  });
+  it('a target out of reach within the horizon is flagged, not NaN-silent', () => {
+    const a = predictArrivalDrag({ posM: 0, velMps: 2, cov: new Float64Array(4), dragPerM: 0.01, targetHeightM: 5, horizonS: 2 });
+    expect(a.reachable).toBe(false);
+    expect(a.status).toBe('never-reaches');
+    expect(() => predictArrivalDrag({ posM: 0, velMps: 2, cov: new Float64Array(9), dragPerM: 0.01, targetHeightM: 5 })).toThrow(DimensionMismatchError);
   });
 });
