@@ -1,5 +1,5 @@
 import type { RowGroup } from './groups';
-import { gaussianMaxLogLik, stratifiedMaxLogLik } from './thresholdModel';
+import { SPREAD_FLOOR_S, stratifiedMaxLogLik } from './thresholdModel';
 import { seededRandom } from './seededRandom';
 
 /** Comparison of hypotheses in one group. */
@@ -72,19 +72,59 @@ export function compareGroup(
   const dLo = new Float64Array(H).fill(NaN);
   const dHi = new Float64Array(H).fill(NaN);
   if (replicates > 0 && n >= 3) {
+    // per row and hypothesis: w = 1/J^2, w x, w x^2 (one pass per resample, no division in the loop)
+    const rowsAll = group.rows;
+    const R = rowsAll.length;
+    const w = new Float64Array(H * R);
+    const wx = new Float64Array(H * R);
+    const wxx = new Float64Array(H * R);
+    const local = new Map<number, number>();
+    for (let i = 0; i < R; i++) local.set(rowsAll[i], i);
+    const strataLocal = group.strata.map((s) => Int32Array.from(s, (r) => local.get(r)!));
+    for (let h = 0; h < H; h++) {
+      const x = ttcByHyp[h];
+      const j = jacByHyp[h];
+      for (let i = 0; i < R; i++) {
+        const r = rowsAll[i];
+        const wi = 1 / (j[r] * j[r]);
+        w[h * R + i] = wi;
+        wx[h * R + i] = wi * x[r];
+        wxx[h * R + i] = wi * x[r] * x[r];
+      }
+    }
     const rng = seededRandom(seed);
     const draws = new Float64Array(replicates * H);
-    const idx = group.strata.map((s) => new Int32Array(s.length));
+    const idx = strataLocal.map((s) => new Int32Array(s.length));
     const ll = new Float64Array(H);
+    const floor2 = SPREAD_FLOOR_S * SPREAD_FLOOR_S;
+    const LOG2PI = Math.log(2 * Math.PI);
     for (let b = 0; b < replicates; b++) {
-      for (let s = 0; s < group.strata.length; s++) {
-        const src = group.strata[s];
+      for (let s = 0; s < strataLocal.length; s++) {
+        const src = strataLocal[s];
         const dst = idx[s];
-        for (let i = 0; i < src.length; i++) dst[i] = src[rng.int(src.length)];
+        const m = src.length;
+        for (let i = 0; i < m; i++) dst[i] = src[Math.floor(rng.uniform() * m)];
       }
       for (let h = 0; h < H; h++) {
+        const off = h * R;
         let sum = 0;
-        for (let s = 0; s < idx.length; s++) sum += gaussianMaxLogLik(ttcByHyp[h], idx[s], idx[s].length, jacByHyp[h]);
+        for (let s = 0; s < idx.length; s++) {
+          const ids = idx[s];
+          const m = ids.length;
+          if (m === 0) continue;
+          let sw = 0;
+          let swx = 0;
+          let swxx = 0;
+          for (let i = 0; i < m; i++) {
+            const q = off + ids[i];
+            sw += w[q];
+            swx += wx[q];
+            swxx += wxx[q];
+          }
+          // sum w (x - mean)^2 = sum w x^2 - (sum w x)^2 / sum w
+          const v = Math.max((swxx - (swx * swx) / sw) / m, floor2);
+          sum += -0.5 * m * (LOG2PI + Math.log(v) + 1);
+        }
         ll[h] = sum;
       }
       for (let h = 0; h < H; h++) draws[h * replicates + b] = ll[h] - ll[best];

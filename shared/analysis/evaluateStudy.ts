@@ -198,6 +198,20 @@ function trialEvaluations(rows: CutoffRows, mat: TtcMatrix, prepared: readonly P
 }
 
 /**
+ * The delay sensitivity on its own (for views that compute it lazily after a fast
+ * `evaluateStudy(..., { skipDelaySweep: true })`): the comparison (condition `all`) recomputed with
+ * cutoff = onset - delay for every delay of `settings.delaySweepMs`, per subject x muscle and pooled.
+ *
+ * @param prepared - prepared trials
+ * @param settings - study settings
+ * @param journal - onset edit journal
+ * @returns one entry per subject (and `all`) x muscle
+ */
+export function evaluateDelaySensitivity(prepared: readonly PreparedTrial[], settings: StudySettings, journal: OnsetJournalLike): DelaySensitivity[] {
+  return sweepDelays(buildCutoffRows(prepared, settings, journal), prepared, settings);
+}
+
+/**
  * Delay sensitivity: the comparison (condition `all`) recomputed with cutoff = onset - delay for every
  * delay of the sweep, per subject x muscle and pooled.
  */

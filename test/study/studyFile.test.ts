@@ -9,7 +9,7 @@ const trial = { id: 't1', subject: 's1', condition: 'a1', file: 's1/t1.c3d', exc
 
 describe('study file (JSON, versioned schema)', () => {
   it('round-trips through serializeStudy and parseStudyFile', () => {
-    const study = { schemaVersion: STUDY_SCHEMA_VERSION, name: 'x', settings: defaultStudySettings(), trials: [trial], journal: { edits: [], cursor: 0 } };
+    const study = { schemaVersion: STUDY_SCHEMA_VERSION as typeof STUDY_SCHEMA_VERSION, name: 'x', settings: defaultStudySettings(), trials: [trial], journal: { edits: [], cursor: 0 } };
     const back = parseStudyFile(serializeStudy(study), 'study.json');
     expect(back.settings).toEqual(study.settings);
     expect(back.trials[0]).toMatchObject(trial);

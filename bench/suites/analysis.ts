@@ -1,0 +1,89 @@
+/**
+ * Timing analysis on a 200-trial simulated study (invented rail-lab data: 4 simulated catchers x 50 trials,
+ * C3D markers at 200 Hz + EDF+ EMG at 2 kHz written to the OS temp folder and deleted afterwards):
+ * - the whole `forecatch analyze` process (spawned), and its phases in process (read + prepare, evaluate, write);
+ * - re-evaluation from the cached prepared trials when only the hypothesis set or the delay changes, with
+ *   every output (bootstrap 500, delay sweep 9 delays) and on the interactive path (delay sweep skipped);
+ *   target: well under 100 ms for 200 trials. Ratios are against the whole first run in the same process.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { BenchSuite } from '../run';
+import { simulateStudy } from '../../shared/simulate/simulateStudy';
+import { evaluateStudy } from '../../shared/analysis/evaluateStudy';
+import { writeSimulatedStudy } from '../../cli/io/writeSimulatedStudy';
+import { loadStudy } from '../../cli/io/loadStudy';
+import { prepareStudyFromDisk } from '../../cli/io/prepareStudyFromDisk';
+import { writeStudyOutputs } from '../../cli/io/writeStudyOutputs';
+import type { StudySettings } from '../../shared/analysis/types';
+
+const G0 = 9.80665;
+const REPEATS = 9;
+
+function median(xs: number[]): number {
+  const s = xs.slice().sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+export const suite: BenchSuite = {
+  name: 'analysis',
+  async run() {
+    const dir = mkdtempSync(join(tmpdir(), 'forecatch-analysis-bench-'));
+    try {
+      const subjects = [0, 0.5, 0.75, 1].map((f, i) => ({ id: `s${i + 1}`, internalGMps2: f * G0, ttcThresholdS: 0.2, delayS: 0.1, motorNoiseSdS: 0.01 }));
+      const sim = simulateStudy({ subjects, trialsPerSubject: 50, seed: 7 });
+      await writeSimulatedStudy(dir, sim.trials, sim.settings, 'bench (invented)', 'invented data\n');
+
+      const bin = fileURLToPath(new URL('../../bin/forecatch.mjs', import.meta.url));
+      let t0 = performance.now();
+      const proc = spawnSync(process.execPath, [bin, 'analyze', dir, '--out', join(dir, 'results-cli')], { encoding: 'utf8' });
+      const processMs = performance.now() - t0;
+      if (proc.status !== 0) throw new Error(`analyze failed: ${proc.stderr}`);
+
+      t0 = performance.now();
+      const loaded = await loadStudy(dir);
+      const { prepared } = await prepareStudyFromDisk(loaded.study, loaded.baseDir);
+      const prepareMs = performance.now() - t0;
+      const settings: StudySettings = loaded.study.settings;
+      const journal = loaded.study.journal;
+      t0 = performance.now();
+      const ev = evaluateStudy(prepared, settings, journal);
+      const firstEvalMs = performance.now() - t0;
+      t0 = performance.now();
+      await writeStudyOutputs(join(dir, 'results'), ev, settings, false);
+      const writeMs = performance.now() - t0;
+      const wholeMs = prepareMs + firstEvalMs + writeMs;
+
+      const fewer: StudySettings = { ...settings, hypotheses: settings.hypotheses.slice(0, 3) };
+      const delayed: StudySettings = { ...settings, cutoff: { kind: 'onset-minus-delay', delayMs: 80 } };
+      const time = (s: StudySettings, skip: boolean): number => {
+        const xs: number[] = [];
+        for (let i = 0; i < REPEATS; i++) {
+          const t = performance.now();
+          evaluateStudy(prepared, s, journal, { skipDelaySweep: skip });
+          xs.push(performance.now() - t);
+        }
+        return median(xs);
+      };
+      const rows: [string, number][] = [
+        ['forecatch analyze, whole process (spawned)', processMs],
+        ['in process: read + prepare 200 trials', prepareMs],
+        ['in process: first evaluation', firstEvalMs],
+        ['in process: write outputs', writeMs],
+        ['re-evaluate, hypothesis set 6 -> 3 (all outputs)', time(fewer, false)],
+        ['re-evaluate, delay 100 -> 80 ms (all outputs)', time(delayed, false)],
+        ['re-evaluate, hypothesis set 6 -> 3 (delay sweep skipped)', time(fewer, true)],
+        ['re-evaluate, delay 100 -> 80 ms (delay sweep skipped)', time(delayed, true)],
+      ];
+      console.log(`200 trials (${prepared.length} prepared), ${settings.hypotheses.length} hypotheses, bootstrap ${settings.bootstrap.replicates}, delay sweep ${settings.delaySweepMs.length} delays; medians of ${REPEATS} for re-evaluations`);
+      console.log('| step | ms | ratio to in-process whole run |');
+      console.log('|---|---:|---:|');
+      for (const [name, ms] of rows) console.log(`| ${name} | ${ms.toFixed(1)} | ${(ms / wholeMs).toFixed(4)} |`);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  },
+};
