@@ -1,6 +1,5 @@
 import type { AnalysisHypothesis, StudyEvaluation, StudySettings } from './types';
 import { describeOnsetMethod } from '../emg/describeOnsetMethod';
-import { describeConditioning } from '../emg/emgConditioningSettings';
 
 function num(v: number, digits = 3): string {
   return Number.isFinite(v) ? String(Number(v.toPrecision(digits))) : 'n/a';
@@ -60,8 +59,8 @@ export function methodsText(evaluation: StudyEvaluation, settings: StudySettings
   );
   const muscles = settings.emgChannels.map((c) => `${c.muscle} (channel '${c.channel}')`).join(', ');
   p.push(
-    `EMG was analysed for ${muscles || 'no muscle'}. ${describeConditioning(settings.onset.conditioning)} ${describeOnsetMethod(settings.onset)} ` +
-      `Onsets were searched from ${num(settings.onsetLeadMs)} ms before release to ${num(settings.onsetMarginMs)} ms after contact, with the 0.4 s before that window (object at rest) as baseline; ` +
+    `EMG was analysed for ${muscles || 'no muscle'}. ${describeOnsetMethod(settings.onset)} ` +
+      `Here the search window ran from ${num(settings.onsetLeadMs)} ms before release to ${num(settings.onsetMarginMs)} ms after contact, and the baseline was set explicitly to the 0.4 s before that window (object at rest); ` +
       `onsets edited by hand in the review journal replaced the automatic ones and are marked in trials.csv (onset_edited).`,
   );
   p.push(
