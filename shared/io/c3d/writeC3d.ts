@@ -205,43 +205,43 @@ function writeFrames(
   const C = signals.length;
   const W = 4 * P + C * spf;
   if (frames === 0 || W === 0) return;
-  // Data start is a multiple of 512, so a Float32Array view is aligned; DataView only on big-endian hosts.
-  const f32 = platformLittleEndian ? new Float32Array(out.buffer, dataOffset, frames * W) : null;
-  const put = (i: number, v: number): void => {
-    if (f32) f32[i] = v;
-    else view.setFloat32(dataOffset + 4 * i, v, true);
-  };
+  // Data start is a multiple of 512, so a Float32Array view of the output is aligned. A big-endian host
+  // fills a separate array and copies it out little-endian at the end.
+  const f32 = platformLittleEndian ? new Float32Array(out.buffer, dataOffset, frames * W) : new Float32Array(frames * W);
   for (let p = 0; p < P; p++) {
     const m = markers[p];
     const res = m.residual;
     const mask = m.cameraMask;
-    for (let f = 0; f < frames; f++) {
-      const i = f * W + 4 * p;
+    for (let f = 0, i = 4 * p; f < frames; f++, i += W) {
       const x = m.x[f];
       const y = m.y[f];
       const z = m.z[f];
       if (Number.isNaN(x) || Number.isNaN(y) || Number.isNaN(z)) {
-        put(i, 0);
-        put(i + 1, 0);
-        put(i + 2, 0);
-        put(i + 3, -1);
+        // Missing: coordinates 0, residual word -1 (invalid).
+        f32[i] = 0;
+        f32[i + 1] = 0;
+        f32[i + 2] = 0;
+        f32[i + 3] = -1;
         continue;
       }
-      put(i, x * unitsPerMetre);
-      put(i + 1, y * unitsPerMetre);
-      put(i + 2, z * unitsPerMetre);
+      f32[i] = x * unitsPerMetre;
+      f32[i + 1] = y * unitsPerMetre;
+      f32[i + 2] = z * unitsPerMetre;
       let word = 0;
       if (res && mask && f < res.length && f < mask.length && res[f] >= 0) {
         word = ((mask[f] & 0x7f) << 8) | Math.min(255, Math.round(res[f] / residualStep));
       }
-      put(i + 3, word);
+      f32[i + 3] = word;
     }
   }
   for (let c = 0; c < C; c++) {
     const v = signals[c].values;
     for (let f = 0; f < frames; f++) {
       const base = f * W + 4 * P + c;
-      for (let s = 0; s < spf; s++) put(base + s * C, v[f * spf + s]);
+      for (let s = 0; s < spf; s++) f32[base + s * C] = v[f * spf + s];
     }
+  }
+  if (!platformLittleEndian) {
+    for (let i = 0; i < f32.length; i++) view.setFloat32(dataOffset + 4 * i, f32[i], true);
   }
 }
