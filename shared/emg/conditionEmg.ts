@@ -56,8 +56,8 @@ export function designConditioningFilters(rateHz: number, settings: EmgCondition
   return { bandPass, notch, envelope, minSamples };
 }
 
-function applyFilter(sos: Sos, y: Float64Array, zeroPhase: boolean, work: Float64Array): void {
-  if (zeroPhase) sosFiltFilt(sos, y, { out: y, work });
+function applyFilter(sos: Sos, y: Float64Array, zeroPhase: boolean): void {
+  if (zeroPhase) sosFiltFilt(sos, y, { out: y });
   else sosFilt(sos, y, sosFiltZi(sos).map((v) => v * y[0]), y);
 }
 
@@ -80,24 +80,29 @@ export function conditionEmg(signal: Float64Array | Float32Array, rateHz: number
   if (n < filters.minSamples) {
     throw new RangeError(`conditionEmg: the signal has ${n} samples; the zero-phase filters need at least ${filters.minSamples}`);
   }
-  const conditioned = Float64Array.from(signal);
-  const mask = new Uint8Array(n);
-  const nanCount = fillGaps(conditioned, mask);
+  const conditioned = new Float64Array(signal);
+  // One pass: the sum (for the offset) is finite only when every sample is.
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += conditioned[i];
+  const finite = sum - sum === 0;
+  const mask = new Uint8Array(finite ? 0 : n);
+  const nanCount = finite ? 0 : fillGaps(conditioned, mask);
   if (nanCount === n) throw new RangeError(`conditionEmg: none of the ${n} samples is finite`);
   if (settings.removeOffset) {
-    let sum = 0;
-    for (let i = 0; i < n; i++) sum += conditioned[i];
+    if (!finite) {
+      sum = 0;
+      for (let i = 0; i < n; i++) sum += conditioned[i];
+    }
     const mean = sum / n;
     for (let i = 0; i < n; i++) conditioned[i] -= mean;
   }
-  const work = new Float64Array(n + 2 * filters.minSamples);
-  if (filters.bandPass) applyFilter(filters.bandPass, conditioned, settings.zeroPhase, work);
-  if (filters.notch) applyFilter(filters.notch, conditioned, settings.zeroPhase, work);
+  if (filters.bandPass) applyFilter(filters.bandPass, conditioned, settings.zeroPhase);
+  if (filters.notch) applyFilter(filters.notch, conditioned, settings.zeroPhase);
   let envelope: Float64Array;
   if (filters.envelope) {
     envelope = new Float64Array(n);
     for (let i = 0; i < n; i++) envelope[i] = Math.abs(conditioned[i]);
-    applyFilter(filters.envelope, envelope, settings.zeroPhase, work);
+    applyFilter(filters.envelope, envelope, settings.zeroPhase);
   } else {
     envelope = movingRms(conditioned, 2 * Math.max(1, Math.round((settings.envelope.rmsWindowS * rateHz) / 2)) + 1);
   }

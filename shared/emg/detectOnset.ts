@@ -4,7 +4,7 @@
  */
 import { baselineThresholdOnset } from './baselineThresholdOnset';
 import { changePointOnset } from './changePointOnset';
-import { conditionEmg } from './conditionEmg';
+import { conditionEmg, type ConditionedEmg } from './conditionEmg';
 import { doubleThresholdOnset } from './doubleThresholdOnset';
 import type { DetectorOutput, OnsetContext } from './onsetContext';
 import { baselineLooksActive, checkSpanQuality } from './onsetQuality';
@@ -37,8 +37,11 @@ function detector(ctx: OnsetContext): DetectorOutput {
  * @param startS - recording-clock time of sample 0, s
  * @param settings - method, conditioning and parameters (see DEFAULT_ONSET_SETTINGS)
  * @param searchWindow - search span and optional baseline on the recording clock, s
+ * @param preconditioned - optional output of conditionEmg(signal, rateHz, settings.conditioning) over the whole
+ *   signal: when given, its samples are used instead of conditioning the span again (for batch work on whole
+ *   channels; near the ends of the signal filter edge effects then differ slightly from span conditioning)
  * @returns onset/offset in s on the recording clock (null when none), quality flags and detection details
- * @throws RangeError for an empty signal, a bad sample rate or start time, a window that is empty or lies
+ * @throws RangeError for an empty signal, preconditioned arrays of another length, a bad sample rate or start time, a window that is empty or lies
  *   wholly outside the recording (message names window and recording span), a sample rate too low for the
  *   conditioning band, or settings out of range; TypeError for an unknown method
  * @see the detector functions for references: baselineThresholdOnset (Hodges & Bui 1996), doubleThresholdOnset
@@ -51,9 +54,13 @@ export function detectOnset(
   startS: number,
   settings: OnsetSettings,
   searchWindow: OnsetSearchWindow,
+  preconditioned?: ConditionedEmg,
 ): OnsetResult {
   const n = signal.length;
   if (n === 0) throw new RangeError('detectOnset: the signal is empty');
+  if (preconditioned && (preconditioned.conditioned.length !== n || preconditioned.envelope.length !== n)) {
+    throw new RangeError(`detectOnset: preconditioned arrays have ${preconditioned.conditioned.length} samples, the signal has ${n}`);
+  }
   if (!(rateHz > 0) || !Number.isFinite(rateHz)) throw new RangeError(`detectOnset: sample rate must be a positive number of Hz, got ${rateHz}`);
   if (!Number.isFinite(startS)) throw new RangeError(`detectOnset: start time must be finite, got ${startS}`);
   validateOnsetSettings(settings);
@@ -127,7 +134,9 @@ export function detectOnset(
     return result(null, null, {}, quality.nanCount);
   }
 
-  const { conditioned, envelope } = conditionEmg(raw, rateHz, settings.conditioning);
+  const { conditioned, envelope } = preconditioned
+    ? { conditioned: preconditioned.conditioned.subarray(segFrom, segTo), envelope: preconditioned.envelope.subarray(segFrom, segTo) }
+    : conditionEmg(raw, rateHz, settings.conditioning);
   const ctx: OnsetContext = {
     rateHz,
     t0S,

@@ -23,32 +23,34 @@ export function checkSpanQuality(raw: Float64Array | Float32Array, from: number,
   let nanCount = 0;
   let lo = Infinity;
   let hi = -Infinity;
+  // Extreme values among runs of >= 3 equal samples, compared with the span's extremes at the end (one pass).
+  let runLo = Infinity;
+  let runHi = -Infinity;
+  let run = 0;
+  let prev = NaN;
+  const level = saturationLevel ?? Infinity;
   let saturated = false;
   for (let i = from; i < to; i++) {
     const v = raw[i];
-    if (!Number.isFinite(v)) {
+    if (!(v - v === 0)) {
       nanCount++;
+      run = 0;
+      prev = NaN;
       continue;
     }
     if (v < lo) lo = v;
     if (v > hi) hi = v;
-    if (saturationLevel !== null && Math.abs(v) >= saturationLevel) saturated = true;
-  }
-  const constant = !(hi > lo);
-  if (!constant && !saturated) {
-    let run = 0;
-    let prev = NaN;
-    for (let i = from; i < to; i++) {
-      const v = raw[i];
-      run = v === prev && (v === hi || v === lo) ? run + 1 : 1;
-      prev = v;
-      if (run >= 3) {
-        saturated = true;
-        break;
-      }
+    if (v >= level || -v >= level) saturated = true;
+    run = v === prev ? run + 1 : 1;
+    prev = v;
+    if (run >= 3) {
+      if (v < runLo) runLo = v;
+      if (v > runHi) runHi = v;
     }
   }
-  return { nanCount, clipped: saturated, constant };
+  const constant = !(hi > lo);
+  const clipped = saturated || (!constant && (runHi === hi || runLo === lo));
+  return { nanCount, clipped, constant };
 }
 
 function blockRms(x: Float64Array, from: number, to: number): number {

@@ -13,8 +13,6 @@ export interface SosFiltFiltOptions {
   padLength?: number;
   /** Output buffer of the input's length (may be the input itself when it is a Float64Array). */
   out?: Float64Array;
-  /** Scratch buffer of at least input length + 2 * padLength, reused across calls to avoid allocation. */
-  work?: Float64Array;
 }
 
 /**
@@ -57,24 +55,28 @@ export function sosFiltFilt(sos: Sos, x: Float64Array | Float32Array, opts: SosF
     throw new RangeError(`sosFiltFilt: the signal has ${n} samples; it must be longer than the pad length ${edge} samples`);
   }
   if (opts.out && opts.out.length !== n) throw new RangeError(`sosFiltFilt: out has ${opts.out.length} samples, input has ${n}`);
-  const total = n + 2 * edge;
-  const buf = opts.work && opts.work.length >= total ? opts.work : new Float64Array(total);
-  const x0 = x[0];
-  const xn = x[n - 1];
+  const out = opts.out ?? new Float64Array(n);
+  if ((out as unknown) !== x) out.set(x);
+  // The odd extensions live in two small buffers; the kernel runs left, middle, right with the state carried
+  // across, which is the same arithmetic as filtering one contiguous extended array.
+  const left = new Float64Array(edge);
+  const right = new Float64Array(edge);
+  const x0 = out[0];
+  const xn = out[n - 1];
   for (let i = 0; i < edge; i++) {
-    buf[i] = 2 * x0 - x[edge - i];
-    buf[edge + n + i] = 2 * xn - x[n - 2 - i];
+    left[i] = 2 * x0 - out[edge - i];
+    right[i] = 2 * xn - out[n - 2 - i];
   }
-  buf.set(x, edge);
   const zi = sosFiltZi(sos);
   const state = new Float64Array(zi.length);
-  let first = buf[0];
+  let first = edge > 0 ? left[0] : out[0];
   for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
-  sosFilterInPlace(sos, buf, 0, total, false, state);
-  first = buf[total - 1];
+  sosFilterInPlace(sos, left, 0, edge, false, state);
+  sosFilterInPlace(sos, out, 0, n, false, state);
+  sosFilterInPlace(sos, right, 0, edge, false, state);
+  first = edge > 0 ? right[edge - 1] : out[n - 1];
   for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
-  sosFilterInPlace(sos, buf, 0, total, true, state);
-  const out = opts.out ?? new Float64Array(n);
-  out.set(buf.subarray(edge, edge + n));
+  sosFilterInPlace(sos, right, 0, edge, true, state);
+  sosFilterInPlace(sos, out, 0, n, true, state);
   return out;
 }

@@ -2,7 +2,7 @@
  * The inner loop of second-order-section filtering, in place, in either direction.
  * Direct form II transposed per section:
  *   y = b0 x + s0;  s0 = b1 x - a1 y + s1;  s1 = b2 x - a2 y.
- * Sections are run two at a time within one sweep so that their recursions overlap in the CPU
+ * Sections are run four (or two) at a time within one sweep so that their recursions overlap in the CPU
  * (the second section's chain does not wait for the first section's next sample).
  */
 import type { Sos } from './zpkToSos';
@@ -23,6 +23,12 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
   const first = backward ? end - 1 : start;
   let s = 0;
   for (; s + 1 < nSec; s += 2) {
+    const warm = Math.max(settleSamples(sos[s * 6 + 4], sos[s * 6 + 5]), settleSamples(sos[s * 6 + 10], sos[s * 6 + 11]));
+    if (warm > 0 && count > 4 * warm) sweep2Split(sos, buf, s, first, count, step, state, warm);
+    else break;
+  }
+  for (; s + 3 < nSec; s += 4) sweep4(sos, buf, s, first, count, step, state);
+  for (; s + 1 < nSec; s += 2) {
     const o = s * 6;
     const b10 = sos[o], b11 = sos[o + 1], b12 = sos[o + 2], a11 = sos[o + 4], a12 = sos[o + 5];
     const b20 = sos[o + 6], b21 = sos[o + 7], b22 = sos[o + 8], a21 = sos[o + 10], a22 = sos[o + 11];
@@ -31,10 +37,10 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
     for (let k = 0; k < count; k++, i += step) {
       const x = buf[i];
       const y1 = b10 * x + s10;
-      s10 = b11 * x - a11 * y1 + s11;
+      s10 = b11 * x + s11 - a11 * y1;
       s11 = b12 * x - a12 * y1;
       const y2 = b20 * y1 + s20;
-      s20 = b21 * y1 - a21 * y2 + s21;
+      s20 = b21 * y1 + s21 - a21 * y2;
       s21 = b22 * y1 - a22 * y2;
       buf[i] = y2;
     }
@@ -43,21 +49,176 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
     state[s * 2 + 2] = s20;
     state[s * 2 + 3] = s21;
   }
-  if (s < nSec) {
-    const o = s * 6;
-    const b0 = sos[o], b1 = sos[o + 1], b2 = sos[o + 2], a1 = sos[o + 4], a2 = sos[o + 5];
+  if (s < nSec) sweep1(sos, buf, s, first, count, step, state);
+}
+
+/**
+ * One section. With a2 far enough from 0 it runs in direct form I, y = ((b0 x + b1 x1 + b2 x2) - a2 y2) - a1 y1,
+ * whose loop-carried chain (one multiply and one subtract) is shorter than direct form II transposed; the
+ * DF2T states are mapped to an equivalent DF1 history (past inputs 0) on entry and back on exit.
+ */
+function sweep1(sos: Sos, buf: Float64Array, s: number, first: number, count: number, step: number, state: Float64Array): void {
+  const o = s * 6;
+  const b0 = sos[o], b1 = sos[o + 1], b2 = sos[o + 2], a1 = sos[o + 4], a2 = sos[o + 5];
+  let i = first;
+  if (Math.abs(a2) < 0.1) {
     let s0 = state[s * 2], s1 = state[s * 2 + 1];
-    let i = first;
     for (let k = 0; k < count; k++, i += step) {
       const x = buf[i];
       const y = b0 * x + s0;
-      s0 = b1 * x - a1 * y + s1;
+      s0 = b1 * x + s1 - a1 * y;
       s1 = b2 * x - a2 * y;
       buf[i] = y;
     }
     state[s * 2] = s0;
     state[s * 2 + 1] = s1;
+    return;
   }
+  // s0 = -a1 y1 - a2 y2 and s1 = -a2 y1 with x1 = x2 = 0
+  let x1 = 0, x2 = 0;
+  let y1 = -state[s * 2 + 1] / a2;
+  let y2 = (-state[s * 2] - a1 * y1) / a2;
+  const warm = settleSamples(a1, a2);
+  let k = 0;
+  if (warm > 0 && count > 4 * warm) {
+    // Two chains in flight: chain A filters the first `half` samples from the true state; chain B starts
+    // `warm` samples before `half` from rest, by which time its start-up error has decayed below 1e-18 of the
+    // state, and writes from `half` on. Chain B reads each input before chain A overwrites it.
+    const half = (count + warm) >> 1;
+    let u1 = 0, u2 = 0, v1 = 0, v2 = 0;
+    let iB = first + (half - warm) * step;
+    for (; k < warm; k++, i += step, iB += step) {
+      const x = buf[i];
+      const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
+      const u = buf[iB];
+      const v = b0 * u + b1 * u1 + b2 * u2 - a2 * v2 - a1 * v1;
+      x2 = x1; x1 = x; y2 = y1; y1 = y;
+      u2 = u1; u1 = u; v2 = v1; v1 = v;
+      buf[i] = y;
+    }
+    for (; k < half; k++, i += step, iB += step) {
+      const x = buf[i];
+      const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
+      const u = buf[iB];
+      const v = b0 * u + b1 * u1 + b2 * u2 - a2 * v2 - a1 * v1;
+      x2 = x1; x1 = x; y2 = y1; y1 = y;
+      u2 = u1; u1 = u; v2 = v1; v1 = v;
+      buf[i] = y;
+      buf[iB] = v;
+    }
+    // Chain B continues alone over what is left (at most one sample when count + warm is odd).
+    k = half + (half - warm);
+    i = iB;
+    x1 = u1; x2 = u2; y1 = v1; y2 = v2;
+  }
+  for (; k < count; k++, i += step) {
+    const x = buf[i];
+    const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
+    x2 = x1;
+    x1 = x;
+    y2 = y1;
+    y1 = y;
+    buf[i] = y;
+  }
+  state[s * 2] = b1 * x1 + b2 * x2 - a1 * y1 - a2 * y2;
+  state[s * 2 + 1] = b2 * x1 - a2 * y1;
+}
+
+/**
+ * Two sections, two chains in flight (see sweep1): chain A runs the first `half` samples from the given
+ * states, chain B starts `warm` samples before `half` from rest and writes from `half` on.
+ */
+function sweep2Split(sos: Sos, buf: Float64Array, s: number, first: number, count: number, step: number, state: Float64Array, warm: number): void {
+  const o = s * 6;
+  const b10 = sos[o], b11 = sos[o + 1], b12 = sos[o + 2], a11 = sos[o + 4], a12 = sos[o + 5];
+  const b20 = sos[o + 6], b21 = sos[o + 7], b22 = sos[o + 8], a21 = sos[o + 10], a22 = sos[o + 11];
+  let s10 = state[s * 2], s11 = state[s * 2 + 1], s20 = state[s * 2 + 2], s21 = state[s * 2 + 3];
+  let t10 = 0, t11 = 0, t20 = 0, t21 = 0;
+  const half = (count + warm) >> 1;
+  let i = first;
+  let iB = first + (half - warm) * step;
+  for (let k = 0; k < half; k++, i += step, iB += step) {
+    const x = buf[i];
+    const y1 = b10 * x + s10;
+    s10 = b11 * x + s11 - a11 * y1;
+    s11 = b12 * x - a12 * y1;
+    const y2 = b20 * y1 + s20;
+    s20 = b21 * y1 + s21 - a21 * y2;
+    s21 = b22 * y1 - a22 * y2;
+    const u = buf[iB];
+    const v1 = b10 * u + t10;
+    t10 = b11 * u + t11 - a11 * v1;
+    t11 = b12 * u - a12 * v1;
+    const v2 = b20 * v1 + t20;
+    t20 = b21 * v1 + t21 - a21 * v2;
+    t21 = b22 * v1 - a22 * v2;
+    buf[i] = y2;
+    if (k >= warm) buf[iB] = v2;
+  }
+  // Chain B finishes alone (at most one sample).
+  for (let k = half + (half - warm); k < count; k++, iB += step) {
+    const u = buf[iB];
+    const v1 = b10 * u + t10;
+    t10 = b11 * u + t11 - a11 * v1;
+    t11 = b12 * u - a12 * v1;
+    const v2 = b20 * v1 + t20;
+    t20 = b21 * v1 + t21 - a21 * v2;
+    t21 = b22 * v1 - a22 * v2;
+    buf[iB] = v2;
+  }
+  state[s * 2] = t10;
+  state[s * 2 + 1] = t11;
+  state[s * 2 + 2] = t20;
+  state[s * 2 + 3] = t21;
+}
+
+/**
+ * Samples after which the free response of 1 / (1 + a1 z^-1 + a2 z^-2) has decayed by 1e-18 (with a factor 2
+ * margin for nearly repeated poles); 0 when a pole is too close to the unit circle for that to be useful.
+ */
+function settleSamples(a1: number, a2: number): number {
+  const disc = a1 * a1 - 4 * a2;
+  const r = disc < 0 ? Math.sqrt(a2) : Math.max(Math.abs((-a1 + Math.sqrt(disc)) / 2), Math.abs((-a1 - Math.sqrt(disc)) / 2));
+  if (!(r < 0.9999)) return 0;
+  if (r === 0) return 4;
+  return 2 * Math.ceil(Math.log(1e-18) / Math.log(r)) + 4;
+}
+
+/** Four sections in one sweep: four recursions in flight per sample. */
+function sweep4(sos: Sos, buf: Float64Array, s: number, first: number, count: number, step: number, state: Float64Array): void {
+  const o = s * 6;
+  const b10 = sos[o], b11 = sos[o + 1], b12 = sos[o + 2], a11 = sos[o + 4], a12 = sos[o + 5];
+  const b20 = sos[o + 6], b21 = sos[o + 7], b22 = sos[o + 8], a21 = sos[o + 10], a22 = sos[o + 11];
+  const b30 = sos[o + 12], b31 = sos[o + 13], b32 = sos[o + 14], a31 = sos[o + 16], a32 = sos[o + 17];
+  const b40 = sos[o + 18], b41 = sos[o + 19], b42 = sos[o + 20], a41 = sos[o + 22], a42 = sos[o + 23];
+  const z = s * 2;
+  let s10 = state[z], s11 = state[z + 1], s20 = state[z + 2], s21 = state[z + 3];
+  let s30 = state[z + 4], s31 = state[z + 5], s40 = state[z + 6], s41 = state[z + 7];
+  let i = first;
+  for (let k = 0; k < count; k++, i += step) {
+    const x = buf[i];
+    const y1 = b10 * x + s10;
+    s10 = b11 * x + s11 - a11 * y1;
+    s11 = b12 * x - a12 * y1;
+    const y2 = b20 * y1 + s20;
+    s20 = b21 * y1 + s21 - a21 * y2;
+    s21 = b22 * y1 - a22 * y2;
+    const y3 = b30 * y2 + s30;
+    s30 = b31 * y2 + s31 - a31 * y3;
+    s31 = b32 * y2 - a32 * y3;
+    const y4 = b40 * y3 + s40;
+    s40 = b41 * y3 + s41 - a41 * y4;
+    s41 = b42 * y3 - a42 * y4;
+    buf[i] = y4;
+  }
+  state[z] = s10;
+  state[z + 1] = s11;
+  state[z + 2] = s20;
+  state[z + 3] = s21;
+  state[z + 4] = s30;
+  state[z + 5] = s31;
+  state[z + 6] = s40;
+  state[z + 7] = s41;
 }
 
 /**

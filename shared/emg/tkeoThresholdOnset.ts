@@ -6,6 +6,7 @@ import { fillGaps } from './fillGaps';
 import type { DetectorOutput, OnsetContext } from './onsetContext';
 import { sosFiltFilt } from './sosFiltFilt';
 import { thresholdOnStatistic } from './thresholdOnStatistic';
+import { rectify } from './rectify';
 import { tkeo } from './tkeo';
 
 /**
@@ -19,11 +20,22 @@ import { tkeo } from './tkeo';
  */
 export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothingHz: number): Float64Array {
   const n = conditioned.length;
-  const filled = Float64Array.from(conditioned);
-  const mask = new Uint8Array(n);
-  const gaps = fillGaps(filled, mask);
+  let finite = true;
+  for (let i = 0; i < n; i++) {
+    if (conditioned[i] !== conditioned[i]) {
+      finite = false;
+      break;
+    }
+  }
+  const mask = new Uint8Array(finite ? 0 : n);
+  let gaps = 0;
+  let filled = conditioned;
+  if (!finite) {
+    filled = new Float64Array(conditioned);
+    gaps = fillGaps(filled, mask);
+  }
   const psi = tkeo(filled);
-  for (let i = 0; i < n; i++) psi[i] = Math.abs(psi[i]);
+  rectify(psi, psi);
   const lp = butterworthSos(2, smoothingHz, rateHz, 'lowpass', { correctForPasses: 2 });
   sosFiltFilt(lp, psi, { out: psi });
   if (gaps > 0) for (let i = 0; i < n; i++) if (mask[i]) psi[i] = NaN;

@@ -186,3 +186,17 @@ describe('describeOnsetMethod writes a methods sentence with the reference of ea
     });
   }
 });
+
+describe('detectOnset on a whole channel conditioned once (batch use)', () => {
+  it('gives the same onset as conditioning the span, away from the signal ends', async () => {
+    const { conditionEmg } = await import('../../shared/emg');
+    const x = trial({}, 31);
+    const pre = conditionEmg(x, RATE, DEFAULT_ONSET_SETTINGS.conditioning);
+    for (const method of ONSET_METHODS) {
+      const a = detectOnset(x, RATE, 0, settingsFor(method), WINDOW);
+      const b = detectOnset(x, RATE, 0, settingsFor(method), WINDOW, pre);
+      expect(Math.abs(a.onsetS! - b.onsetS!)).toBeLessThan(0.001);
+    }
+    expect(() => detectOnset(x, RATE, 0, DEFAULT_ONSET_SETTINGS, WINDOW, { ...pre, envelope: pre.envelope.subarray(1) })).toThrow(/preconditioned arrays/);
+  });
+});

@@ -1,0 +1,143 @@
+/**
+ * EMG conditioning and onset detection speed on 16 channels x 60 s x 2 kHz (invented rail-lab EMG), compared
+ * in the same run with scipy.signal.sosfiltfilt on the same samples and the same band-pass sections
+ * (Debian's /usr/bin/python3 with scipy; skipped with a message when it is not there).
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { BenchSuite } from '../run';
+import { SeededRandom, makeSyntheticTrial } from '../emg/syntheticEmg';
+import {
+  DEFAULT_EMG_CONDITIONING,
+  DEFAULT_ONSET_SETTINGS,
+  butterworthSos,
+  conditionEmg,
+  detectOnset,
+  sosFiltFilt,
+} from '../../shared/emg';
+
+const CHANNELS = 16;
+const DURATION_S = 60;
+const RATE_HZ = 2000;
+const REPEATS = 2;
+const ROUNDS = 3;
+const PYTHON = '/usr/bin/python3';
+
+const PY_TIMER = `
+import sys, json, time
+import numpy as np
+import scipy, scipy.signal as sig
+path, channels, sos_json, repeats = sys.argv[1], int(sys.argv[2]), sys.argv[3], int(sys.argv[4])
+x = np.fromfile(path, dtype='<f8').reshape(channels, -1)
+sos = np.array(json.loads(sos_json)).reshape(-1, 6)
+best = float('inf')
+for _ in range(repeats):
+    t0 = time.perf_counter()
+    y = sig.sosfiltfilt(sos, x, axis=-1)
+    best = min(best, time.perf_counter() - t0)
+print(json.dumps({"seconds": best, "scipy": scipy.__version__, "checksum": float(y[:, 1000:1010].sum())}))
+`;
+
+function best(fn: () => void): number {
+  let b = Infinity;
+  for (let r = 0; r < REPEATS; r++) {
+    const t0 = performance.now();
+    fn();
+    b = Math.min(b, (performance.now() - t0) / 1000);
+  }
+  return b;
+}
+
+function msps(samples: number, seconds: number): string {
+  return (samples / seconds / 1e6).toFixed(2);
+}
+
+export const suite: BenchSuite = {
+  name: 'emgSpeed',
+  async run() {
+    const n = DURATION_S * RATE_HZ;
+    const total = n * CHANNELS;
+    const rng = new SeededRandom(4242);
+    const channels: Float64Array[] = [];
+    for (let c = 0; c < CHANNELS; c++) {
+      channels.push(
+        makeSyntheticTrial(
+          { rateHz: RATE_HZ, durationS: DURATION_S, snrDb: 12, onsetS: rng.between(20, 40), riseS: 0.03, burstS: 0.5, artefact: null, hum: null },
+          rng,
+        ),
+      );
+    }
+    const settings = DEFAULT_EMG_CONDITIONING;
+    const bandPass = butterworthSos(settings.bandPass.order, [settings.bandPass.lowHz, settings.bandPass.highHz], RATE_HZ, 'bandpass', { correctForPasses: 2 });
+    let sink = 0;
+    const work = {
+      filt: () => {
+        for (const x of channels) sink += sosFiltFilt(bandPass, x)[1000];
+      },
+      chain: () => {
+        for (const x of channels) sink += conditionEmg(x, RATE_HZ, settings).envelope[1000];
+      },
+      detect: () => {
+        for (const x of channels) sink += detectOnset(x, RATE_HZ, 0, DEFAULT_ONSET_SETTINGS, { fromS: 0, toS: DURATION_S }).onsetS ?? 0;
+      },
+      both: () => {
+        for (const x of channels) {
+          const pre = conditionEmg(x, RATE_HZ, settings);
+          sink += detectOnset(x, RATE_HZ, 0, DEFAULT_ONSET_SETTINGS, { fromS: 0, toS: DURATION_S }, pre).onsetS ?? 0;
+        }
+      },
+    };
+    const times = { filt: Infinity, chain: Infinity, detect: Infinity, both: Infinity };
+
+    // Rounds alternate Forecatch and scipy so that both meet the same machine load; each keeps its best time.
+    let scipyS: number | null = null;
+    let scipyNote = '';
+    let file = '';
+    let dir = '';
+    if (!existsSync(PYTHON)) scipyNote = `skipped: ${PYTHON} not found`;
+    else {
+      dir = mkdtempSync(join(tmpdir(), 'forecatch-emg-'));
+      file = join(dir, 'signal.f64');
+      const all = new Float64Array(total);
+      channels.forEach((x, c) => all.set(x, c * n));
+      writeFileSync(file, new Uint8Array(all.buffer));
+    }
+    try {
+      for (let round = 0; round < ROUNDS; round++) {
+        for (const key of Object.keys(work) as (keyof typeof work)[]) times[key] = Math.min(times[key], best(work[key]));
+        if (!file || scipyNote.startsWith('skipped')) continue;
+        const res = spawnSync(PYTHON, ['-c', PY_TIMER, file, String(CHANNELS), JSON.stringify(Array.from(bandPass)), String(REPEATS)], { encoding: 'utf8' });
+        if (res.status === 0) {
+          const out = JSON.parse(res.stdout.trim().split('\n').pop() as string) as { seconds: number; scipy: string };
+          scipyS = Math.min(scipyS ?? Infinity, out.seconds);
+          scipyNote = `scipy ${out.scipy} via ${PYTHON}`;
+        } else {
+          scipyNote = `skipped: ${PYTHON} could not run scipy (${(res.stderr || res.error?.message || '').trim().split('\n').pop()})`;
+          scipyS = null;
+        }
+      }
+    } finally {
+      if (dir) rmSync(dir, { recursive: true, force: true });
+    }
+    const tFilt = times.filt;
+    const tChain = times.chain;
+    const tDetect = times.detect;
+    const tBoth = times.both;
+
+    console.log(`${CHANNELS} channels x ${DURATION_S} s x ${RATE_HZ} Hz = ${(total / 1e6).toFixed(2)} M samples; best of ${ROUNDS} rounds x ${REPEATS} runs, alternating with scipy; band-pass ${settings.bandPass.lowHz}-${settings.bandPass.highHz} Hz Butterworth order ${settings.bandPass.order} (${bandPass.length / 6} sections), zero-phase.\n`);
+    console.log('| work | time (s) | M samples/s | vs scipy sosfiltfilt |');
+    console.log('|---|---:|---:|---:|');
+    const ratio = (t: number): string => (scipyS === null ? 'n/a' : `${(scipyS / t).toFixed(2)}x`);
+    const row = (label: string, t: number): void => console.log(`| ${label} | ${t.toFixed(3)} | ${msps(total, t)} | ${ratio(t)} |`);
+    if (scipyS !== null) console.log(`| scipy.signal.sosfiltfilt, band-pass only (${scipyNote}) | ${scipyS.toFixed(3)} | ${msps(total, scipyS)} | 1.00x |`);
+    row('Forecatch sosFiltFilt, band-pass only', tFilt);
+    row('Forecatch conditionEmg (offset, band-pass, rectify, 10 Hz envelope)', tChain);
+    row(`Forecatch detectOnset, ${DEFAULT_ONSET_SETTINGS.method} (conditions the span itself)`, tDetect);
+    row('Forecatch conditionEmg + detectOnset on its output (the whole chain)', tBoth);
+    if (scipyS === null) console.log(`\nscipy comparison ${scipyNote}.`);
+    else console.log(`\nRatio = scipy time / Forecatch time (above 1: Forecatch faster). Target: conditioning chain + detection at least as fast as scipy's sosfiltfilt: ${scipyS / tBoth >= 1 ? 'met' : 'NOT met'}.`);
+    if (sink === 0.123456789) console.log('');
+  },
+};
