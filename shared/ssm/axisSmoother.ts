@@ -1,7 +1,8 @@
 /**
  * Scalar-local RTS smoother kernels for n = 2 or 3 states (m = 1), used automatically by
  * {@link rtsSmooth}. Same operations as the general dense code: smoother gain C = P_k|k F' P_k+1|k^-1
- * by a Cholesky solve of P_k+1|k, smoothed covariance symmetrised, lag-one covariance P_k+1|T C'.
+ * by a Cholesky solve of P_k+1|k, Joseph-form smoothed covariance symmetrised, lag-one covariance
+ * P_k+1|T C'.
  * Internal to `shared/ssm/`.
  */
 import { NotPositiveDefiniteError } from '../errors';
@@ -20,7 +21,7 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
   const Fw = new Float64Array(4);
   const uw = new Float64Array(2);
   const Qw = new Float64Array(4);
-  let f00 = 0, f01 = 0, f10 = 0, f11 = 0;
+  let f00 = 0, f01 = 0, f10 = 0, f11 = 0, q00 = 0, q01 = 0, q10 = 0, q11 = 0;
   let lastDt = NaN;
   // Smoothed moments of step k+1 (s: mean, S: covariance).
   const e = T - 1;
@@ -33,6 +34,7 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
     if (dt !== lastDt) {
       model.discretize(dt, Fw, uw, Qw);
       f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
+      q00 = Qw[0]; q01 = Qw[1]; q10 = Qw[2]; q11 = Qw[3];
       lastDt = dt;
     }
     const xo = 2 * k, po = 4 * k, x1 = xo + 2, p1 = po + 4;
@@ -63,13 +65,18 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
     const d0 = s0 - xPred[x1], d1 = s1 - xPred[x1 + 1];
     const n0 = xFilt[xo] + C00 * d0 + C01 * d1;
     const n1 = xFilt[xo + 1] + C10 * d0 + C11 * d1;
-    // P_k|T = P_k|k + C (P_k+1|T - P_k+1|k) C'
-    const D00 = S00 - p00, D01 = S01 - p01, D11 = S11 - p11;
-    const E00 = C00 * D00 + C01 * D01, E01 = C00 * D01 + C01 * D11;
-    const E10 = C10 * D00 + C11 * D01, E11 = C10 * D01 + C11 * D11;
-    const N00 = E00 * C00 + E01 * C01 + c00;
-    const N01 = 0.5 * ((E00 * C10 + E01 * C11 + c01) + (E10 * C00 + E11 * C01 + c01));
-    const N11 = E10 * C10 + E11 * C11 + c11;
+    // Joseph-form RTS covariance, a sum of positive semi-definite terms equal to
+    // P_k|k + C (P_k+1|T - P_k+1|k) C':  P_k|T = (I - C F) P_k|k (I - C F)' + C (Q + P_k+1|T) C'
+    const A00 = 1 - (C00 * f00 + C01 * f10), A01 = -(C00 * f01 + C01 * f11);
+    const A10 = -(C10 * f00 + C11 * f10), A11 = 1 - (C10 * f01 + C11 * f11);
+    const B00 = A00 * c00 + A01 * c01, B01 = A00 * c01 + A01 * c11;
+    const B10 = A10 * c00 + A11 * c01, B11 = A10 * c01 + A11 * c11;
+    const W00 = q00 + S00, W01 = 0.5 * (q01 + q10) + S01, W11 = q11 + S11;
+    const E00 = C00 * W00 + C01 * W01, E01 = C00 * W01 + C01 * W11;
+    const E10 = C10 * W00 + C11 * W01, E11 = C10 * W01 + C11 * W11;
+    const N00 = B00 * A00 + B01 * A01 + (E00 * C00 + E01 * C01);
+    const N01 = 0.5 * ((B00 * A10 + B01 * A11 + (E00 * C10 + E01 * C11)) + (B10 * A00 + B11 * A01 + (E10 * C00 + E11 * C01)));
+    const N11 = B10 * A10 + B11 * A11 + (E10 * C10 + E11 * C11);
     // Cov(x_k+1, x_k | T) = P_k+1|T C'
     PLag[p1] = S00 * C00 + S01 * C01;
     PLag[p1 + 1] = S00 * C10 + S01 * C11;
@@ -89,6 +96,7 @@ export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: Smooth
   const uw = new Float64Array(3);
   const Qw = new Float64Array(9);
   let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
+  let q00 = 0, q01 = 0, q02 = 0, q10 = 0, q11 = 0, q12 = 0, q20 = 0, q21 = 0, q22 = 0;
   let lastDt = NaN;
   const e = T - 1;
   let s0 = xFilt[3 * e], s1 = xFilt[3 * e + 1], s2 = xFilt[3 * e + 2];
@@ -101,6 +109,7 @@ export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: Smooth
     if (dt !== lastDt) {
       model.discretize(dt, Fw, uw, Qw);
       f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
+      q00 = Qw[0]; q01 = Qw[1]; q02 = Qw[2]; q10 = Qw[3]; q11 = Qw[4]; q12 = Qw[5]; q20 = Qw[6]; q21 = Qw[7]; q22 = Qw[8];
       lastDt = dt;
     }
     const xo = 3 * k, po = 9 * k, x1 = xo + 3, p1 = po + 9;
@@ -135,17 +144,28 @@ export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: Smooth
     const n0 = xFilt[xo] + C00 * d0 + C01 * d1 + C02 * d2;
     const n1 = xFilt[xo + 1] + C10 * d0 + C11 * d1 + C12 * d2;
     const n2 = xFilt[xo + 2] + C20 * d0 + C21 * d1 + C22 * d2;
-    // P_k|T = P_k|k + C (P_k+1|T - P_k+1|k) C'
-    const D00 = S00 - p00, D01 = S01 - p01, D02 = S02 - p02, D11 = S11 - p11, D12 = S12 - p12, D22 = S22 - p22;
-    const E00 = C00 * D00 + C01 * D01 + C02 * D02, E01 = C00 * D01 + C01 * D11 + C02 * D12, E02 = C00 * D02 + C01 * D12 + C02 * D22;
-    const E10 = C10 * D00 + C11 * D01 + C12 * D02, E11 = C10 * D01 + C11 * D11 + C12 * D12, E12 = C10 * D02 + C11 * D12 + C12 * D22;
-    const E20 = C20 * D00 + C21 * D01 + C22 * D02, E21 = C20 * D01 + C21 * D11 + C22 * D12, E22 = C20 * D02 + C21 * D12 + C22 * D22;
-    const N00 = E00 * C00 + E01 * C01 + E02 * C02 + c00;
-    const N11 = E10 * C10 + E11 * C11 + E12 * C12 + c11;
-    const N22 = E20 * C20 + E21 * C21 + E22 * C22 + c22;
-    const N01 = 0.5 * ((E00 * C10 + E01 * C11 + E02 * C12 + c01) + (E10 * C00 + E11 * C01 + E12 * C02 + c01));
-    const N02 = 0.5 * ((E00 * C20 + E01 * C21 + E02 * C22 + c02) + (E20 * C00 + E21 * C01 + E22 * C02 + c02));
-    const N12 = 0.5 * ((E10 * C20 + E11 * C21 + E12 * C22 + c12) + (E20 * C10 + E21 * C11 + E22 * C12 + c12));
+    // Joseph-form RTS covariance, a sum of positive semi-definite terms equal to
+    // P_k|k + C (P_k+1|T - P_k+1|k) C':  P_k|T = (I - C F) P_k|k (I - C F)' + C (Q + P_k+1|T) C'
+    const A00 = 1 - (C00 * f00 + C01 * f10 + C02 * f20), A01 = -(C00 * f01 + C01 * f11 + C02 * f21), A02 = -(C00 * f02 + C01 * f12 + C02 * f22);
+    const A10 = -(C10 * f00 + C11 * f10 + C12 * f20), A11 = 1 - (C10 * f01 + C11 * f11 + C12 * f21), A12 = -(C10 * f02 + C11 * f12 + C12 * f22);
+    const A20 = -(C20 * f00 + C21 * f10 + C22 * f20), A21 = -(C20 * f01 + C21 * f11 + C22 * f21), A22 = 1 - (C20 * f02 + C21 * f12 + C22 * f22);
+    const B00 = A00 * c00 + A01 * c01 + A02 * c02, B01 = A00 * c01 + A01 * c11 + A02 * c12, B02 = A00 * c02 + A01 * c12 + A02 * c22;
+    const B10 = A10 * c00 + A11 * c01 + A12 * c02, B11 = A10 * c01 + A11 * c11 + A12 * c12, B12 = A10 * c02 + A11 * c12 + A12 * c22;
+    const B20 = A20 * c00 + A21 * c01 + A22 * c02, B21 = A20 * c01 + A21 * c11 + A22 * c12, B22 = A20 * c02 + A21 * c12 + A22 * c22;
+    const W00 = q00 + S00, W11 = q11 + S11, W22 = q22 + S22;
+    const W01 = 0.5 * (q01 + q10) + S01, W02 = 0.5 * (q02 + q20) + S02, W12 = 0.5 * (q12 + q21) + S12;
+    const E00 = C00 * W00 + C01 * W01 + C02 * W02, E01 = C00 * W01 + C01 * W11 + C02 * W12, E02 = C00 * W02 + C01 * W12 + C02 * W22;
+    const E10 = C10 * W00 + C11 * W01 + C12 * W02, E11 = C10 * W01 + C11 * W11 + C12 * W12, E12 = C10 * W02 + C11 * W12 + C12 * W22;
+    const E20 = C20 * W00 + C21 * W01 + C22 * W02, E21 = C20 * W01 + C21 * W11 + C22 * W12, E22 = C20 * W02 + C21 * W12 + C22 * W22;
+    const N00 = B00 * A00 + B01 * A01 + B02 * A02 + (E00 * C00 + E01 * C01 + E02 * C02);
+    const N11 = B10 * A10 + B11 * A11 + B12 * A12 + (E10 * C10 + E11 * C11 + E12 * C12);
+    const N22 = B20 * A20 + B21 * A21 + B22 * A22 + (E20 * C20 + E21 * C21 + E22 * C22);
+    const N01 = 0.5 * ((B00 * A10 + B01 * A11 + B02 * A12 + (E00 * C10 + E01 * C11 + E02 * C12)) +
+      (B10 * A00 + B11 * A01 + B12 * A02 + (E10 * C00 + E11 * C01 + E12 * C02)));
+    const N02 = 0.5 * ((B00 * A20 + B01 * A21 + B02 * A22 + (E00 * C20 + E01 * C21 + E02 * C22)) +
+      (B20 * A00 + B21 * A01 + B22 * A02 + (E20 * C00 + E21 * C01 + E22 * C02)));
+    const N12 = 0.5 * ((B10 * A20 + B11 * A21 + B12 * A22 + (E10 * C20 + E11 * C21 + E12 * C22)) +
+      (B20 * A10 + B21 * A11 + B22 * A12 + (E20 * C10 + E21 * C11 + E22 * C12)));
     // Cov(x_k+1, x_k | T) = P_k+1|T C'
     PLag[p1] = S00 * C00 + S01 * C01 + S02 * C02;
     PLag[p1 + 1] = S00 * C10 + S01 * C11 + S02 * C12;

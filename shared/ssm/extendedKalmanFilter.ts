@@ -57,7 +57,6 @@ export function extendedRtsSmooth(model: NonlinearStateSpaceModel, filtered: Fil
   if (T === 0) throw new RangeError('extendedRtsSmooth: zero-length filter result');
   const out = allocateSmoothResult(n, T);
   const scratchX = new Float64Array(n);
-  const scratchQ = new Float64Array(n * n);
-  smoothGeneral({}, filtered, out, (k, dt, F) => model.propagate(dt, filtered.xFilt, k * n, scratchX, 0, F, scratchQ));
+  smoothGeneral({}, filtered, out, (k, dt, F, Q) => model.propagate(dt, filtered.xFilt, k * n, scratchX, 0, F, Q));
   return out;
 }

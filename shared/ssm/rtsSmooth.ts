@@ -5,7 +5,7 @@ import { DimensionMismatchError, NotPositiveDefiniteError } from '../errors';
 import type { StateSpaceModel } from './stateSpaceModel';
 import type { FilterResult } from './kalmanFilter';
 import { validateModel } from './stateSpaceModel';
-import { choleskyLower, choleskySolveInPlace, matMul, symmetrize } from './denseLinalg';
+import { choleskyLower, choleskySolveInPlace, matMul, matMulTransB, symmetrize } from './denseLinalg';
 import { smoothAxis2, smoothAxis3 } from './axisSmoother';
 
 /** Output of {@link rtsSmooth}: moments of the state given all samples. */
@@ -43,7 +43,9 @@ export function allocateSmoothResult(n: number, T: number): SmoothResult {
  * Runs the RTS smoother backwards over a filter result.
  *
  * C_k = P_k|k F' P_k+1|k^-1 (by a Cholesky solve of P_k+1|k, no explicit inverse),
- * x_k|T = x_k|k + C_k (x_k+1|T - x_k+1|k), P_k|T = P_k|k + C_k (P_k+1|T - P_k+1|k) C_k' (symmetrised),
+ * x_k|T = x_k|k + C_k (x_k+1|T - x_k+1|k), P_k|T = P_k|k + C_k (P_k+1|T - P_k+1|k) C_k' evaluated in the
+ * equivalent Joseph form (I - C_k F) P_k|k (I - C_k F)' + C_k (Q + P_k+1|T) C_k' (a sum of positive
+ * semi-definite terms, so roundoff cannot make it indefinite over long records), symmetrised,
  * Cov(x_k+1, x_k | T) = P_k+1|T C_k'.
  *
  * @param model - the model the filter ran with (its `discretize` is called again for each step)
@@ -82,10 +84,10 @@ export function rtsSmooth(model: StateSpaceModel, filtered: FilterResult, opts: 
 }
 
 /**
- * Supplies the transition (or, for the extended smoother, the Jacobian) F of the step from sample k
- * to k+1. Internal to `shared/ssm/`.
+ * Supplies the transition (or, for the extended smoother, the Jacobian) F and the process noise Q of
+ * the step from sample k to k+1. Internal to `shared/ssm/`.
  */
-export type TransitionHook = (k: number, dtS: number, F: Float64Array) => void;
+export type TransitionHook = (k: number, dtS: number, F: Float64Array, Q: Float64Array) => void;
 
 /**
  * The general dense smoother; fills `out` in place. Without `transitionAt`, F comes from
@@ -102,8 +104,10 @@ export function smoothGeneral(
   const Q = new Float64Array(nn);
   const L = new Float64Array(nn);
   const Ct = new Float64Array(nn);
-  const D = new Float64Array(nn);
-  const CD = new Float64Array(nn);
+  const A = new Float64Array(nn);
+  const AP = new Float64Array(nn);
+  const W = new Float64Array(nn);
+  const CW = new Float64Array(nn);
   const diff = new Float64Array(n);
   let lastDt = NaN;
   const last = (T - 1) * n;
@@ -112,7 +116,7 @@ export function smoothGeneral(
   for (let k = T - 2; k >= 0; k--) {
     const dt = timesS[k + 1] - timesS[k];
     if (transitionAt) {
-      transitionAt(k, dt, F);
+      transitionAt(k, dt, F, Q);
     } else if (dt !== lastDt) {
       model.discretize!(dt, F, u, Q);
       lastDt = dt;
@@ -136,18 +140,33 @@ export function smoothGeneral(
       for (let j = 0; j < n; j++) s += Ct[j * n + i] * diff[j];
       xSmooth[xo + i] = s;
     }
-    // P_k|T = P_k|k + C (P_k+1|T - P_k+1|k) C'
-    for (let i = 0; i < nn; i++) D[i] = PSmooth[p1 + i] - PPred[p1 + i];
-    // CD = C D = Ct' D
+    // Joseph-form RTS covariance, a sum of positive semi-definite terms equal to
+    // P_k|k + C (P_k+1|T - P_k+1|k) C':  P_k|T = (I - C F) P_k|k (I - C F)' + C (Q + P_k+1|T) C'
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        let s = i === j ? 1 : 0;
+        for (let l = 0; l < n; l++) s -= Ct[l * n + i] * F[l * n + j];
+        A[i * n + j] = s;
+      }
+    }
+    matMul(A, 0, PFilt, po, AP, 0, n, n, n);
+    matMulTransB(AP, 0, A, 0, PSmooth, po, n, n, n);
+    for (let i = 0; i < nn; i++) W[i] = Q[i] + PSmooth[p1 + i];
+    // CW = C W = Ct' W; P_k|T += CW C'
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < n; j++) {
         let s = 0;
-        for (let l = 0; l < n; l++) s += Ct[l * n + i] * D[l * n + j];
-        CD[i * n + j] = s;
+        for (let l = 0; l < n; l++) s += Ct[l * n + i] * W[l * n + j];
+        CW[i * n + j] = s;
       }
     }
-    matMul(CD, 0, Ct, 0, PSmooth, po, n, n, n);
-    for (let i = 0; i < nn; i++) PSmooth[po + i] += PFilt[po + i];
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        let s = 0;
+        for (let l = 0; l < n; l++) s += CW[i * n + l] * Ct[l * n + j];
+        PSmooth[po + i * n + j] += s;
+      }
+    }
     symmetrize(PSmooth, po, n);
     // Cov(x_k+1, x_k | T) = P_k+1|T C'
     matMul(PSmooth, p1, Ct, 0, PLag, p1, n, n, n);

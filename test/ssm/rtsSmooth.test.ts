@@ -3,7 +3,7 @@ import { kalmanFilter } from '../../shared/ssm/kalmanFilter';
 import { rtsSmooth } from '../../shared/ssm/rtsSmooth';
 import { makeAxisModel } from '../../shared/ssm/hypotheses';
 import { batchSolution } from './batchSolution';
-import { irregularTimes, planarModel, simulate } from './helpers';
+import { irregularTimes, planarModel, rng, simulate } from './helpers';
 
 // Reference: shared/reference/FACTS.md, "RTS smoother on a linear-Gaussian model equals the batch
 // least-squares (maximum a posteriori) solution of the stacked system: a mathematical identity".
@@ -73,4 +73,27 @@ describe('rtsSmooth equals the dense batch least-squares (MAP) solution of the s
       });
     }
   }
+});
+
+describe('rtsSmooth stays positive over long records (Joseph-form smoothed covariance)', () => {
+  it('fitted gravity over 50,000 samples: Var(g | all) is the same at every sample and equals the final filtered variance; all variances > 0', () => {
+    // A constant, noise-free state has one posterior given all data, whatever the sample: an identity.
+    const T = 50000;
+    const r = rng(1);
+    const t = Float64Array.from({ length: T }, (_, k) => k / 1000);
+    const z = Float64Array.from(t, (s) => 1.8 - 4.9 * (s % 1) ** 2 + 0.0005 * r.normal());
+    for (const kernel of ['auto', 'general'] as const) {
+      const m = makeAxisModel({ id: 'fg', kind: 'fitted-gravity' }, { axis: 'vertical', qIntensity: 1e-12, measurementVarM2: 2.5e-7 });
+      const f = kalmanFilter(m, z, t, { kernel });
+      const s = rtsSmooth(m, f, { kernel });
+      const last = f.PFilt[9 * (T - 1) + 8];
+      let spread = 0, minDiag = Infinity;
+      for (let k = 0; k < T; k++) {
+        spread = Math.max(spread, Math.abs(s.PSmooth[9 * k + 8] / last - 1));
+        for (const d of [0, 4, 8]) minDiag = Math.min(minDiag, s.PSmooth[9 * k + d]);
+      }
+      expect(spread).toBeLessThan(1e-6);
+      expect(minDiag).toBeGreaterThan(0);
+    }
+  });
 });
