@@ -80,9 +80,17 @@ export function readC3d(bytes: Uint8Array, fileName: string): C3dFile {
   const unsigned = formatText === 'UNSIGNED';
   const genScaleRaw = getC3dNumber(groups, 'ANALOG', 'GEN_SCALE');
   const genScale = genScaleRaw !== undefined && Number.isFinite(genScaleRaw) ? genScaleRaw : 1;
-  const scales = perChannel(getC3dNumberList(groups, 'ANALOG', 'SCALE'), C, 1);
+  const scaleList = getC3dNumberList(groups, 'ANALOG', 'SCALE');
   // ANALOG:OFFSET is stored as int16; with ANALOG:FORMAT UNSIGNED it is read unsigned too (from memory).
-  const offsets = perChannel(getC3dNumberList(groups, 'ANALOG', 'OFFSET').map((v) => (unsigned && v < 0 ? v + 65536 : v)), C, 0);
+  const offsetList = getC3dNumberList(groups, 'ANALOG', 'OFFSET').map((v) => (unsigned && v < 0 ? v + 65536 : v));
+  if (C > 0 && (scaleList.length < C || offsetList.length < C)) {
+    warnings.push({
+      code: 'C3D_ANALOG_SCALING',
+      message: `${fileName}: ${scaleList.length} ANALOG:SCALE and ${offsetList.length} ANALOG:OFFSET values for ${C} channels; missing scales taken as 1, offsets as 0`,
+    });
+  }
+  const scales = perChannel(scaleList, C, 1);
+  const offsets = perChannel(offsetList, C, 0);
   const factors = new Float64Array(C);
   for (let c = 0; c < C; c++) factors[c] = scales[c] * genScale;
 

@@ -237,6 +237,8 @@ describe('readC3d: more than 65535 frames', () => {
         { kind: 'param', group: 1, name: 'RATE', type: 4, dims: [], values: [1000] },
         { kind: 'group', id: 2, name: 'ANALOG' },
         { kind: 'param', group: 2, name: 'USED', type: 2, dims: [], values: [1] },
+        { kind: 'param', group: 2, name: 'SCALE', type: 4, dims: [1], values: [1] },
+        { kind: 'param', group: 2, name: 'OFFSET', type: 2, dims: [1], values: [0] },
         ...records,
       ],
       frames: Array.from({ length: frames }, (_, i) => [i % 30000]),
@@ -310,6 +312,15 @@ describe('readC3d: bad input', () => {
     const b = good.slice();
     new DataView(b.buffer).setUint16(16, 9000, true);
     expect(parseError(b).byteOffset).toBe(16);
+  });
+
+  it('warns when ANALOG:SCALE or ANALOG:OFFSET has fewer values than channels (scale 1, offset 0 assumed)', () => {
+    const spec = smallSpec('intel', false);
+    spec.records = spec.records.filter((r) => !(r.kind === 'param' && r.group === 2 && r.name === 'OFFSET'));
+    const c3d = readC3d(buildC3dBytes(spec), 'nooffset.c3d');
+    expect(c3d.warnings.map((w) => w.code)).toEqual(['C3D_ANALOG_SCALING']);
+    // Raw 100 of channel A, frame 0: 100 x 0.25 x 2.
+    expect(c3d.analog.channels[0].values[0]).toBe(50);
   });
 
   it('numbers frames from 1 with a warning when header word 4 says frame 0', () => {
