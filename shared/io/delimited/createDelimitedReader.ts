@@ -8,6 +8,7 @@ import { ParseError } from '../../errors';
 import type { ImportWarning, Recording } from '../../recording/types';
 import type { ImportTemplate } from '../importTemplate';
 import { ColumnStore } from './columnStore';
+import { parseDecimal } from './parseDecimal';
 import { planColumns, SLOT_MARKER, type ColumnPlan } from './columnPlan';
 import { sniffDelimited, type DelimitedDialect } from './sniffDelimited';
 import { buildDelimitedRecording } from './buildDelimitedRecording';
@@ -125,7 +126,7 @@ export function createDelimitedReader(fileName: string, opts: DelimitedReaderOpt
         if (row >= s.allocatedRows) s.ensure(row + 1);
         if (timeCol >= 0) {
           const text = cells[timeCol];
-          const t = (text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text)) / timeDiv;
+          const t = (text.length === 0 ? NaN : parseDecimal(text, comma)) / timeDiv;
           if (!(t > lastT) || t === Infinity || (t === 0 && text.trim() === '')) {
             const shown = `"${text.trim().slice(0, 24)}"`;
             fault(lineNo, timeCol, t === t && text.trim() !== '' && t !== Infinity ? `a time stamp after ${lastT}` : 'a finite time stamp', shown);
@@ -142,7 +143,7 @@ export function createDelimitedReader(fileName: string, opts: DelimitedReaderOpt
         for (let k = first; k < nSlots; k++) {
           const col = srcCol[k];
           const text = cells[col];
-          let v = text.length === 0 ? NaN : Number(comma ? text.replace(',', '.') : text);
+          let v = text.length === 0 ? NaN : parseDecimal(text, comma);
           if (v !== v) {
             const t = text.trim();
             if (t !== '' && t !== 'NaN' && t.toLowerCase() !== 'nan') {
