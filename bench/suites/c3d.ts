@@ -57,6 +57,16 @@ function inventedRecording(): Recording {
   };
 }
 
+/** Writes the invented recording to `path`; the recording and the bytes are garbage once this returns. */
+function writeBenchFile(path: string): { writeMs: number; sizeMB: number } {
+  const rec = inventedRecording();
+  const t0 = performance.now();
+  const bytes = writeC3d(rec);
+  const writeMs = performance.now() - t0;
+  writeFileSync(path, bytes);
+  return { writeMs, sizeMB: bytes.length / 1e6 };
+}
+
 function median(xs: number[]): number {
   const s = xs.slice().sort((a, b) => a - b);
   return s[Math.floor(s.length / 2)];
@@ -68,11 +78,7 @@ export const suite: BenchSuite = {
     const dir = mkdtempSync(join(tmpdir(), 'forecatch-c3d-bench-'));
     const path = join(dir, 'bench.c3d');
     try {
-      let t0 = performance.now();
-      const bytesOut = writeC3d(inventedRecording());
-      const writeMs = performance.now() - t0;
-      writeFileSync(path, bytesOut);
-      const sizeMB = bytesOut.length / 1e6;
+      const { writeMs, sizeMB } = writeBenchFile(path);
       // Wall time and this process's CPU time (user + system): on a shared machine the CPU time is the
       // steadier figure; both are printed.
       const timed = <T>(fn: () => T, wall: number[], cpu: number[]): T => {
