@@ -5,6 +5,7 @@
 import { DEFAULT_EMG_CONDITIONING, type EmgConditioningSettings } from '../emg/emgConditioningSettings';
 import { DEFAULT_ONSET_SETTINGS } from '../emg/onsetSettings';
 import type { OnsetResult, OnsetSettings } from '../emg/onsetTypes';
+import type { OnsetEdit, OnsetJournal } from '../emg/onsetJournal';
 
 /** EMG conditioning settings (band-pass, notch, rectification, envelope); shared/emg. */
 export type EmgConditioningSettingsLike = EmgConditioningSettings;
@@ -21,22 +22,8 @@ export const DEFAULT_ONSET_DETECTION_SETTINGS: OnsetSettings = DEFAULT_ONSET_SET
 /** Result of one automatic onset detection (shared/emg detectOnset). */
 export type OnsetResultLike = OnsetResult;
 
-/** One manual edit of an onset; see shared/emg/onsetJournal.ts. */
-export interface OnsetEditLike {
-  id: string;
-  trialId: string;
-  muscle: string;
-  action: 'accept' | 'move' | 'invalidate' | 'restore';
-  /** Onset before the edit, s (recording clock). */
-  fromS: number | null;
-  /** Onset after the edit, s (recording clock). */
-  toS: number | null;
-  reason?: string;
-  atIso: string;
-}
+/** One manual edit of an onset (shared/emg/onsetJournal.ts OnsetEdit). */
+export type OnsetEditLike = OnsetEdit;
 
-/** The onset edit journal (edits in order; `cursor` = number of edits in effect, for undo/redo). */
-export interface OnsetJournalLike {
-  edits: readonly OnsetEditLike[];
-  cursor: number;
-}
+/** The onset edit journal (shared/emg/onsetJournal.ts OnsetJournal: edits in order, cursor for undo/redo). */
+export type OnsetJournalLike = OnsetJournal;

@@ -13,7 +13,7 @@ import type {
 import { buildCutoffRows, fillCutoffStates, type CutoffRows } from './cutoffRows';
 import { computeTtcMatrix, type TtcMatrix } from './ttcMatrix';
 import { hypothesisAcceleration } from './hypothesisTtc';
-import { arrivalWithSd } from './arrivalWithSd';
+import { predictArrival } from '../ssm/arrival';
 import { summarizeTtc } from './summarizeTtc';
 import { compareGroup } from './compareModels';
 import { gravityGrid, internalGravityProfiles, ttcOverGravityGrid } from './internalGravity';
@@ -135,7 +135,6 @@ export function evaluateStudy(
 
 const acc3 = new Float64Array(3);
 const cov9 = new Float64Array(9);
-const tsd = new Float64Array(2);
 
 /** Per trial x muscle rows with every hypothesis' evaluation (objects for tables and views). */
 function trialEvaluations(rows: CutoffRows, mat: TtcMatrix, prepared: readonly PreparedTrial[], settings: StudySettings): TrialMuscleEvaluation[] {
@@ -157,9 +156,13 @@ function trialEvaluations(rows: CutoffRows, mat: TtcMatrix, prepared: readonly P
           cov9[2] = cov9[5] = cov9[6] = cov9[7] = 0;
           cov9[8] = acc3[1];
         }
-        arrivalWithSd(rows.state[r * 3], rows.state[r * 3 + 1], acc3[0], rows.targetM[r], cov9, tsd);
         predicted = rows.onsetS[r] + mat.ttcByHyp[hi][r];
-        sdMs = tsd[1] * 1000;
+        let finite = Number.isFinite(acc3[0]) && Number.isFinite(rows.targetM[r]);
+        for (let i = 0; i < 9 && finite; i++) finite = Number.isFinite(cov9[i]);
+        if (finite && Number.isFinite(predicted)) {
+          const pa = predictArrival({ posM: rows.state[r * 3], velMps: rows.state[r * 3 + 1], accMps2: acc3[0], cov: cov9, targetHeightM: rows.targetM[r] });
+          sdMs = pa.reachable ? pa.sdS * 1000 : NaN;
+        }
       }
       return {
         hypothesis: h.id,

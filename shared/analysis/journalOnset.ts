@@ -1,6 +1,7 @@
 import type { OnsetJournalLike, OnsetResultLike } from './types';
+import { effectiveOnset } from '../emg/onsetJournal';
 
-/** Effective onset of one trial x muscle after the journal's edits (see shared/emg effectiveOnset). */
+/** Effective onset of one trial x muscle after the journal's edits (shared/emg effectiveOnset). */
 export interface EffectiveOnset {
   onsetS: number | null;
   edited: boolean;
@@ -9,12 +10,8 @@ export interface EffectiveOnset {
 }
 
 /**
- * Applies the onset journal's edits in effect (the first `cursor` edits) for one trial x muscle on top of
- * the automatic onset: `move` sets the onset, `invalidate` removes it, `restore` returns to the automatic
- * onset, `accept` confirms the current one.
- *
- * LOCAL STAND-IN for shared/emg/onsetJournal.ts effectiveOnset (contract D), with the same semantics;
- * replaced by a re-export when that module lands.
+ * Applies the onset journal's edits in effect for one trial x muscle on top of the automatic onset, with
+ * shared/emg's effectiveOnset; a muscle without an automatic result (channel missing) counts as no onset.
  *
  * @param automatic - the detector's result (undefined when the muscle was not analysed)
  * @param journal - edits and cursor
@@ -28,31 +25,7 @@ export function journalOnset(
   trialId: string,
   muscle: string,
 ): EffectiveOnset {
-  const auto = automatic ? automatic.onsetS : null;
-  let onsetS = auto;
-  let edited = false;
-  let invalid = false;
-  let reason: string | undefined;
-  const end = Math.min(journal.cursor, journal.edits.length);
-  for (let i = 0; i < end; i++) {
-    const e = journal.edits[i];
-    if (e.trialId !== trialId || e.muscle !== muscle) continue;
-    if (e.action === 'move') {
-      onsetS = e.toS;
-      edited = true;
-      invalid = false;
-    } else if (e.action === 'invalidate') {
-      onsetS = null;
-      edited = true;
-      invalid = true;
-    } else if (e.action === 'restore') {
-      onsetS = auto;
-      edited = false;
-      invalid = false;
-    } else if (e.action === 'accept') {
-      edited = true;
-    }
-    reason = e.reason;
-  }
-  return { onsetS, edited, invalid, reason };
+  const auto = automatic ?? ({ onsetS: null, offsetS: null, flags: ['no-onset'], method: 'baseline-threshold' } as unknown as OnsetResultLike);
+  const e = effectiveOnset(auto, journal, trialId, muscle);
+  return { onsetS: e.onsetS, edited: e.edited, invalid: e.invalid, reason: e.reason };
 }

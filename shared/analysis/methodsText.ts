@@ -60,7 +60,7 @@ export function methodsText(evaluation: StudyEvaluation, settings: StudySettings
   const muscles = settings.emgChannels.map((c) => `${c.muscle} (channel '${c.channel}')`).join(', ');
   p.push(
     `EMG was analysed for ${muscles || 'no muscle'}. ${describeOnsetMethod(settings.onset)} ` +
-      `Here the search window ran from ${num(settings.onsetLeadMs)} ms before release to ${num(settings.onsetMarginMs)} ms after contact, and the baseline was set explicitly to the 0.4 s before that window (object at rest); ` +
+      `Here the search window ran from ${num(settings.onsetLeadMs)} ms before release to ${num(settings.onsetMarginMs)} ms after contact, and the baseline was set explicitly to the 0.4 s before the search window, with the object at rest; ` +
       `onsets edited by hand in the review journal replaced the automatic ones and are marked in trials.csv (onset_edited).`,
   );
   p.push(

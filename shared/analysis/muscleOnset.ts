@@ -11,7 +11,7 @@ import type { OnsetResultLike, StudySettings } from './types';
  * @param channel - raw EMG channel
  * @param offsetS - added to the channel's clock to put it on the kinematics clock, s
  * @param settings - study settings (conditioning, onset)
- * @param window - search window on the kinematics clock, s
+ * @param searchWindow - search window on the kinematics clock, s
  * @returns the onset result (recording clock of the kinematics), the envelope and its start time
  * @throws RangeError from detectOnset when the window lies outside the channel
  */
@@ -19,15 +19,15 @@ export function muscleOnset(
   channel: SignalChannel,
   offsetS: number,
   settings: StudySettings,
-  window: { fromS: number; toS: number },
+  searchWindow: { fromS: number; toS: number },
 ): { result: OnsetResultLike; envelope: Float64Array; startS: number } {
   const startS = channel.startS + offsetS;
-  const baselineFromS = Math.max(startS, window.fromS - 0.4);
+  const baselineFromS = Math.max(startS, searchWindow.fromS - 0.4);
   const result = detectOnset(channel.values, channel.rateHz, startS, settings.onset, {
-    fromS: window.fromS,
-    toS: window.toS,
+    fromS: searchWindow.fromS,
+    toS: searchWindow.toS,
     baselineFromS,
-    baselineToS: window.fromS,
+    baselineToS: searchWindow.fromS,
   });
   const { envelope } = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
   return { result, envelope, startS };

@@ -3,6 +3,7 @@ import { rtsSmooth } from '../ssm/rtsSmooth';
 import { makeAxisModel, type HypothesisSpec } from '../ssm/hypotheses';
 import type { ReconstructionSettings } from './types';
 import { fitAxisNoiseGrid } from './fitAxisNoiseGrid';
+import { fitNoiseMle } from '../ssm/estimateNoise';
 import { G0_MPS2 } from './hypothesisTtc';
 
 /** Filtered and smoothed vertical states in the common 3-state layout [height, velocity, acceleration]. */
@@ -39,7 +40,8 @@ function toThreeState(x: Float64Array, P: Float64Array, n: number, T: number, ki
 
 /**
  * Reconstructs the vertical motion of the object: Kalman filter and RTS smoother under the reconstruction
- * hypothesis with noise fitted by maximum likelihood (or fixed), giving position, velocity, acceleration and
+ * hypothesis with noise fitted by maximum likelihood (a coarse log grid, then the engine's fitNoiseMle from
+ * the best grid point; or fixed), giving position, velocity, acceleration and
  * their covariances at every sample.
  *
  * @param heightM - measured heights, m (NaN = missing), length T
@@ -73,8 +75,18 @@ export function reconstructVertical(heightM: Float64Array, timesS: Float64Array,
   if (settings.noise.kind === 'fixed') {
     noise = { qIntensity: settings.noise.qIntensity, measurementVarM2: settings.noise.measurementVarM2, logLik: NaN, fitted: false };
   } else {
-    const fit = fitAxisNoiseGrid(spec, heightM, timesS, x0, P0);
-    noise = { qIntensity: fit.qIntensity, measurementVarM2: fit.measurementVarM2, logLik: fit.logLik, fitted: true };
+    // a bounded log grid finds the basin, the engine's maximum-likelihood estimator refines it
+    const grid = fitAxisNoiseGrid(spec, heightM, timesS, x0, P0);
+    noise = { qIntensity: grid.qIntensity, measurementVarM2: grid.measurementVarM2, logLik: grid.logLik, fitted: true };
+    try {
+      const build = (q: number, r: number) => makeAxisModel(spec, { axis: 'vertical', qIntensity: q, measurementVarM2: r, x0, P0 });
+      const mle = fitNoiseMle(build, heightM, timesS, { qInit: grid.qIntensity, rInit: grid.measurementVarM2, maxIterations: 300 });
+      if (mle.logLik >= grid.logLik && mle.qIntensity > 0 && mle.measurementVarM2 > 0) {
+        noise = { qIntensity: mle.qIntensity, measurementVarM2: mle.measurementVarM2, logLik: mle.logLik, fitted: true };
+      }
+    } catch {
+      /* keep the grid estimate */
+    }
   }
   const model = makeAxisModel(spec, { axis: 'vertical', qIntensity: noise.qIntensity, measurementVarM2: noise.measurementVarM2, x0, P0 });
   const filt = kalmanFilter(model, heightM, timesS);

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { arrivalTimeS } from '../../shared/analysis/arrivalTime';
-import { arrivalWithSd } from '../../shared/analysis/arrivalWithSd';
 import { onsetJacobian, bayesPriorWeight, bayesPosteriorAcc, dragArrivalS } from '../../shared/analysis/hypothesisTtc';
 
 const G0 = 9.80665; // FACTS.md: standard gravity, exact (3rd CGPM 1901; ISO 80000-3)
@@ -36,25 +35,6 @@ describe('arrivalTimeS: constant-acceleration arrival (FACTS.md "Physics" and "T
         }
       }
     }
-  });
-});
-
-describe('arrivalWithSd: delta-method SD of the arrival time', () => {
-  it('equals the SD from finite-difference gradients of the root', () => {
-    const cov = Float64Array.of(1e-6, 2e-7, 0, 2e-7, 4e-4, 1e-5, 0, 1e-5, 0.25);
-    const out = new Float64Array(2);
-    const [p, v, a] = [1.2, -2.5, -7];
-    arrivalWithSd(p, v, a, 0, cov, out);
-    const h = 1e-6;
-    const g = [
-      (arrivalTimeS(p + h, v, a, 0) - arrivalTimeS(p - h, v, a, 0)) / (2 * h),
-      (arrivalTimeS(p, v + h, a, 0) - arrivalTimeS(p, v - h, a, 0)) / (2 * h),
-      (arrivalTimeS(p, v, a + h, 0) - arrivalTimeS(p, v, a - h, 0)) / (2 * h),
-    ];
-    let varT = 0;
-    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) varT += g[i] * cov[i * 3 + j] * g[j];
-    expect(out[0]).toBeCloseTo(arrivalTimeS(p, v, a, 0), 12);
-    expect(out[1]).toBeCloseTo(Math.sqrt(varT), 7);
   });
 });
 
