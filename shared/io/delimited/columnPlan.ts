@@ -152,6 +152,9 @@ export function planColumns(fileName: string, d: DelimitedDialect, template?: Im
         order.push(label);
       }
       const axis = 'xyz'.indexOf(m[2].toLowerCase());
+      if (g.cols[axis] >= 0) {
+        throw new ParseError({ file: fileName, line: headerLine, column: names[i] }, `one column for ${label}_${'xyz'[axis]}`, `columns ${g.cols[axis] + 1} and ${i + 1}`);
+      }
       g.cols[axis] = i;
       g.units[axis] = (m[3] ?? unitOf(i) ?? '').toLowerCase();
     }

@@ -177,6 +177,11 @@ describe('createDelimitedReader: bad input', () => {
     expect(e.line).toBe(1);
   });
 
+  it('refuses two columns for the same marker axis', () => {
+    const e = parseError(() => read('time,ball_x,ball_y,ball_z,ball_X\n0,1,2,3,4\n0.1,1,2,3,4\n'));
+    expect(e.message).toContain('one column for ball_x');
+  });
+
   it('asks for a time column or a template when none is named time/time_s', () => {
     const e = parseError(() => read('t,emg\n0,1\n0.1,2\n'));
     expect(e.message).toContain('a time column named "time" or "time_s"');
