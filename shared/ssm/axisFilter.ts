@@ -75,9 +75,10 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
       const s = h0 * ph0 + h1 * ph1 + r;
       if (!(s > 0) || s === Infinity) throw notPd(k, timesS[k]);
       // K = P H' / S; v = z - H x
-      const k0 = ph0 / s, k1 = ph1 / s;
+      const is = 1 / s;
+      const k0 = ph0 * is, k1 = ph1 * is;
       const v = zk - (h0 * x0 + h1 * x1);
-      const q = (v * v) / s;
+      const q = v * v * is;
       nis[k] = q;
       nisDof[k] = 1;
       // log-likelihood term -(log 2pi + log S + NIS)/2. log S is accumulated as a product, flushed
@@ -180,9 +181,10 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
       const ph2 = p02 * h0 + p12 * h1 + p22 * h2;
       const s = h0 * ph0 + h1 * ph1 + h2 * ph2 + r;
       if (!(s > 0) || s === Infinity) throw notPd(k, timesS[k]);
-      const k0 = ph0 / s, k1 = ph1 / s, k2 = ph2 / s;
+      const is = 1 / s;
+      const k0 = ph0 * is, k1 = ph1 * is, k2 = ph2 * is;
       const v = zk - (h0 * x0 + h1 * x1 + h2 * x2);
-      const q = (v * v) / s;
+      const q = v * v * is;
       nis[k] = q;
       nisDof[k] = 1;
       // log-likelihood term -(log 2pi + log S + NIS)/2. log S is accumulated as a product, flushed

@@ -45,20 +45,20 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
     const m10 = f10 * c00 + f11 * c01, m11 = f10 * c01 + f11 * c11;
     // Cholesky of P_k+1|k
     if (!(p00 > 0)) throw notPd(k + 1, timesS[k + 1]);
-    const l00 = Math.sqrt(p00);
-    const l10 = p01 / l00;
+    const l00 = Math.sqrt(p00), i00 = 1 / l00;
+    const l10 = p01 * i00;
     const d11 = p11 - l10 * l10;
     if (!(d11 > 0)) throw notPd(k + 1, timesS[k + 1]);
-    const l11 = Math.sqrt(d11);
-    // C' = P_k+1|k^-1 M, column by column (forward then backward substitution)
-    let y0 = m00 / l00;
-    let y1 = (m10 - l10 * y0) / l11;
-    const t10 = y1 / l11;
-    const t00 = (y0 - l10 * t10) / l00;
-    y0 = m01 / l00;
-    y1 = (m11 - l10 * y0) / l11;
-    const t11 = y1 / l11;
-    const t01 = (y0 - l10 * t11) / l00;
+    const i11 = 1 / Math.sqrt(d11);
+    // C' = P_k+1|k^-1 M, column by column (forward then backward substitution; i = 1 / diag(L))
+    let y0 = m00 * i00;
+    let y1 = (m10 - l10 * y0) * i11;
+    const t10 = y1 * i11;
+    const t00 = (y0 - l10 * t10) * i00;
+    y0 = m01 * i00;
+    y1 = (m11 - l10 * y0) * i11;
+    const t11 = y1 * i11;
+    const t01 = (y0 - l10 * t11) * i00;
     // C = (C')'
     const C00 = t00, C01 = t10, C10 = t01, C11 = t11;
     // x_k|T = x_k|k + C (x_k+1|T - x_k+1|k)
@@ -123,22 +123,22 @@ export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: Smooth
     const m20 = f20 * c00 + f21 * c01 + f22 * c02, m21 = f20 * c01 + f21 * c11 + f22 * c12, m22 = f20 * c02 + f21 * c12 + f22 * c22;
     // Cholesky of P_k+1|k
     if (!(p00 > 0)) throw notPd(k + 1, timesS[k + 1]);
-    const l00 = Math.sqrt(p00);
-    const l10 = p01 / l00, l20 = p02 / l00;
+    const i00 = 1 / Math.sqrt(p00);
+    const l10 = p01 * i00, l20 = p02 * i00;
     const d11 = p11 - l10 * l10;
     if (!(d11 > 0)) throw notPd(k + 1, timesS[k + 1]);
-    const l11 = Math.sqrt(d11);
-    const l21 = (p12 - l20 * l10) / l11;
+    const i11 = 1 / Math.sqrt(d11);
+    const l21 = (p12 - l20 * l10) * i11;
     const d22 = p22 - l20 * l20 - l21 * l21;
     if (!(d22 > 0)) throw notPd(k + 1, timesS[k + 1]);
-    const l22 = Math.sqrt(d22);
-    // C' = P_k+1|k^-1 M, column j gives row j of C
-    let y0 = m00 / l00, y1 = (m10 - l10 * y0) / l11, y2 = (m20 - l20 * y0 - l21 * y1) / l22;
-    const C02 = y2 / l22, C01 = (y1 - l21 * C02) / l11, C00 = (y0 - l10 * C01 - l20 * C02) / l00;
-    y0 = m01 / l00; y1 = (m11 - l10 * y0) / l11; y2 = (m21 - l20 * y0 - l21 * y1) / l22;
-    const C12 = y2 / l22, C11 = (y1 - l21 * C12) / l11, C10 = (y0 - l10 * C11 - l20 * C12) / l00;
-    y0 = m02 / l00; y1 = (m12 - l10 * y0) / l11; y2 = (m22 - l20 * y0 - l21 * y1) / l22;
-    const C22 = y2 / l22, C21 = (y1 - l21 * C22) / l11, C20 = (y0 - l10 * C21 - l20 * C22) / l00;
+    const i22 = 1 / Math.sqrt(d22);
+    // C' = P_k+1|k^-1 M, column j gives row j of C (i = 1 / diag(L))
+    let y0 = m00 * i00, y1 = (m10 - l10 * y0) * i11, y2 = (m20 - l20 * y0 - l21 * y1) * i22;
+    const C02 = y2 * i22, C01 = (y1 - l21 * C02) * i11, C00 = (y0 - l10 * C01 - l20 * C02) * i00;
+    y0 = m01 * i00; y1 = (m11 - l10 * y0) * i11; y2 = (m21 - l20 * y0 - l21 * y1) * i22;
+    const C12 = y2 * i22, C11 = (y1 - l21 * C12) * i11, C10 = (y0 - l10 * C11 - l20 * C12) * i00;
+    y0 = m02 * i00; y1 = (m12 - l10 * y0) * i11; y2 = (m22 - l20 * y0 - l21 * y1) * i22;
+    const C22 = y2 * i22, C21 = (y1 - l21 * C22) * i11, C20 = (y0 - l10 * C21 - l20 * C22) * i00;
     // x_k|T = x_k|k + C (x_k+1|T - x_k+1|k)
     const d0 = s0 - xPred[x1], d1 = s1 - xPred[x1 + 1], d2 = s2 - xPred[x1 + 2];
     const n0 = xFilt[xo] + C00 * d0 + C01 * d1 + C02 * d2;
