@@ -20,25 +20,28 @@ import { tkeo } from './tkeo';
  */
 export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothingHz: number): Float64Array {
   const n = conditioned.length;
-  let finite = true;
-  for (let i = 0; i < n; i++) {
-    if (conditioned[i] !== conditioned[i]) {
-      finite = false;
-      break;
-    }
-  }
-  const mask = new Uint8Array(finite ? 0 : n);
-  let gaps = 0;
-  let filled = conditioned;
-  if (!finite) {
-    filled = new Float64Array(conditioned);
-    gaps = fillGaps(filled, mask);
-  }
-  const psi = tkeo(filled);
-  rectify(psi, psi);
+  if (n < 3) throw new RangeError(`smoothedTkeo: needs at least 3 samples, got ${n}`);
   const lp = butterworthSos(2, smoothingHz, rateHz, 'lowpass', { correctForPasses: 2 });
+  // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass; the sum tells whether any sample was not finite.
+  let psi: Float64Array = new Float64Array(n);
+  let sum = 0;
+  for (let i = 1; i < n - 1; i++) {
+    const v = Math.abs(conditioned[i] * conditioned[i] - conditioned[i + 1] * conditioned[i - 1]);
+    psi[i] = v;
+    sum += v;
+  }
+  psi[0] = psi[1];
+  psi[n - 1] = psi[n - 2];
+  if (sum - sum === 0 && conditioned[0] - conditioned[0] === 0 && conditioned[n - 1] - conditioned[n - 1] === 0) {
+    return sosFiltFilt(lp, psi, { out: psi });
+  }
+  // Non-finite samples: bridge them for the operator and the filter, then mark them NaN again.
+  const filled = new Float64Array(conditioned);
+  const mask = new Uint8Array(n);
+  fillGaps(filled, mask);
+  psi = rectify(tkeo(filled, psi), psi);
   sosFiltFilt(lp, psi, { out: psi });
-  if (gaps > 0) for (let i = 0; i < n; i++) if (mask[i]) psi[i] = NaN;
+  for (let i = 0; i < n; i++) if (mask[i]) psi[i] = NaN;
   return psi;
 }
 
