@@ -1,6 +1,8 @@
 /**
- * Public API of Forecatch's state-space engine: models, Kalman filter, RTS smoother, dynamics
- * hypotheses.
+ * Public API of Forecatch's state-space engine: the linear-Gaussian model description, Kalman filter and
+ * RTS smoother (general dense code plus scalar per-axis kernels), dynamics hypotheses, noise estimation
+ * (EM and direct likelihood), the extended filter/smoother for the drag hypothesis, and arrival /
+ * time-to-contact prediction.
  */
 export type { StateSpaceModel, ObservationPart, TimeInvariantModelSpec } from './stateSpaceModel';
 export { validateModel, timeInvariantModel, localLevelModel } from './stateSpaceModel';
