@@ -134,6 +134,10 @@ export function prepareTrial(trial: TrialSpec, recording: Recording, settings: S
       const dec = decimateMean(r.envelope, ch.rateHz, r.startS, 4000);
       envelopes[spec.muscle] = dec;
       if (r.result.onsetS === null) flags.push({ code: 'no-onset', severity: 'error', muscle: spec.muscle, message: `no onset of ${spec.muscle} between ${windowFrom.toFixed(3)} and ${windowTo.toFixed(3)} s` });
+      // the detector's quality flags (baseline too active, clipping, onset at the window edge...) as warnings
+      for (const f of r.result.flags) {
+        if (f !== 'no-onset') flags.push({ code: `onset-${f}`, severity: 'warning', muscle: spec.muscle, message: `${spec.muscle}: onset detector flag '${f}'` });
+      }
     } catch (err) {
       flags.push({ code: 'emg-error', severity: 'error', muscle: spec.muscle, message: err instanceof Error ? err.message : String(err) });
     }
