@@ -6,8 +6,13 @@ import type { TrialSpec } from './studySettings';
 
 /** A problem found while preparing or evaluating a trial; the trial keeps going where it can. */
 export interface TrialFlag {
-  /** Stable code: `missing-file`, `read-error`, `no-object-marker`, `no-release`, `no-contact`,
-   *  `no-onset`, `onset-outside-window`, `too-many-gaps`, `noise-fit-failed`, `no-emg-channel`, ... */
+  /**
+   * Stable code. Errors: `no-release`, `no-contact`, `no-impact-channel`, `no-onset`, `no-emg-channel`,
+   * `emg-error`. Warnings: `many-gaps` (over 20% of object samples missing), `onset-<detector flag>` (e.g.
+   * `onset-baseline-too-active`, `onset-clipped`, `onset-onset-at-window-edge`). Trials that cannot be
+   * prepared at all are FailedTrial (codes `IO_ERROR`, `PARSE_ERROR`, `no-markers`, `no-object-marker`,
+   * `no-target-marker`, `too-few-samples`).
+   */
   code: string;
   message: string;
   /** Muscle the flag is about, when it is about one. */
