@@ -40,7 +40,12 @@ export interface DetectorOutput {
   statistic: string;
 }
 
-/** A detector output for a baseline whose spread is zero (nothing can be detected). */
+/**
+ * A detector output for a baseline whose spread is zero (nothing can be detected).
+ * @param statistic - name of the detection statistic
+ * @param mean - baseline mean of the statistic
+ * @returns an output with no detection and constantBaseline set
+ */
 export function constantBaselineOutput(statistic: string, mean: number): DetectorOutput {
   return {
     detection: -1,

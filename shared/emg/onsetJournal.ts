@@ -52,7 +52,10 @@ export interface EffectiveOnset {
 
 const ACTIONS: readonly OnsetEditAction[] = ['accept', 'move', 'invalidate', 'restore'];
 
-/** An empty journal. */
+/**
+ * An empty journal.
+ * @returns a journal with no edits and the cursor at 0
+ */
 export function emptyJournal(): OnsetJournal {
   return { edits: [], cursor: 0 };
 }
@@ -95,12 +98,20 @@ export function applyEdit(journal: OnsetJournal, edit: OnsetEdit): OnsetJournal 
   return Object.freeze({ edits: Object.freeze(edits), cursor: edits.length });
 }
 
-/** Whether {@link undo} would change anything. */
+/**
+ * Whether {@link undo} would change anything.
+ * @param journal - journal
+ * @returns true when an edit is in effect
+ */
 export function canUndo(journal: OnsetJournal): boolean {
   return journal.cursor > 0;
 }
 
-/** Whether {@link redo} would change anything. */
+/**
+ * Whether {@link redo} would change anything.
+ * @param journal - journal
+ * @returns true when an undone edit can be re-applied
+ */
 export function canRedo(journal: OnsetJournal): boolean {
   return journal.cursor < journal.edits.length;
 }

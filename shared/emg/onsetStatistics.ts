@@ -2,7 +2,7 @@
  * Small index-based helpers shared by the onset detectors (no allocation).
  */
 
-/** Mean, SD (n - 1) and finite count of x[from..to), NaN skipped. */
+/** Mean, SD (n - 1) and finite count of a span, NaN skipped. */
 export interface SpanStats {
   mean: number;
   sd: number;
@@ -60,6 +60,11 @@ export function firstSustainedAbove(stat: ArrayLike<number>, from: number, to: n
 
 /**
  * First index i in [from, to) where stat stays at or below thr (or NaN) for runLength samples.
+ * @param stat - detection statistic
+ * @param from - first candidate index
+ * @param to - end of the search (exclusive); the run must fit before it
+ * @param thr - threshold (at or below counts)
+ * @param runLength - samples the run must last (>= 1)
  * @returns index, or -1
  */
 export function firstSustainedBelow(stat: ArrayLike<number>, from: number, to: number, thr: number, runLength: number): number {
@@ -75,6 +80,10 @@ export function firstSustainedBelow(stat: ArrayLike<number>, from: number, to: n
 
 /**
  * Walks back from index idx while the previous sample is above level (and not before lowest).
+ * @param stat - detection statistic
+ * @param idx - starting index (a sample above level)
+ * @param lowest - the walk stops here at the latest
+ * @param level - level the stretch must stay above
  * @returns the first index of the above-level stretch that contains idx
  */
 export function walkBackAbove(stat: ArrayLike<number>, idx: number, lowest: number, level: number): number {

@@ -223,6 +223,8 @@ function sweep4(sos: Sos, buf: Float64Array, s: number, first: number, count: nu
 
 /**
  * Checks that sos is a non-empty n x 6 array of finite numbers with a0 = 1 in every section.
+ * @param sos - sections to check
+ * @param where - function name for the message
  * @throws RangeError naming the offending section
  */
 export function checkSos(sos: Sos, where: string): void {
