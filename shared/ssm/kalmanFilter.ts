@@ -74,7 +74,8 @@ export function allocateFilterResult(n: number, m: number, timesS: Float64Array)
 }
 
 /**
- * Runs the Kalman filter over all samples.
+ * Runs the Kalman filter over all samples. The model's x0, P0 are the prior of the state at the first
+ * sample time (so the first prediction is x0, P0 and the first update uses z_0).
  *
  * Predict: x_k|k-1 = F x_k-1 + u, P_k|k-1 = F P F' + Q (skipped at k = 0, where the prediction is x0, P0).
  * Update (observed components only; NaN components are dropped by removing their rows of H and rows
@@ -98,8 +99,10 @@ export function kalmanFilter(
   model: StateSpaceModel, z: Float64Array, timesS: Float64Array, opts: KalmanFilterOptions = {},
 ): FilterResult {
   checkFilterInputs(model, z, timesS);
+  const kernel = opts.kernel ?? 'auto';
+  if (kernel !== 'auto' && kernel !== 'general') throw new TypeError(`kalmanFilter: kernel must be 'auto' or 'general', got ${String(kernel)}`);
   const res = allocateFilterResult(model.n, model.m, timesS);
-  if ((opts.kernel ?? 'auto') === 'auto' && model.m === 1) {
+  if (kernel === 'auto' && model.m === 1) {
     if (model.n === 2) {
       filterAxis2(model, z, timesS, res);
       return res;
@@ -163,6 +166,7 @@ export function filterGeneral(
     if (k === 0) {
       xPred.set(model.x0, 0);
       PPred.set(model.P0, 0);
+      symmetrize(PPred, 0, n);
     } else {
       const dt = timesS[k] - timesS[k - 1];
       const xp = xo - n;

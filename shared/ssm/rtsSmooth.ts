@@ -45,7 +45,8 @@ export function allocateSmoothResult(n: number, T: number): SmoothResult {
  * C_k = P_k|k F' P_k+1|k^-1 (by a Cholesky solve of P_k+1|k, no explicit inverse),
  * x_k|T = x_k|k + C_k (x_k+1|T - x_k+1|k), P_k|T = P_k|k + C_k (P_k+1|T - P_k+1|k) C_k' evaluated in the
  * equivalent Joseph form (I - C_k F) P_k|k (I - C_k F)' + C_k (Q + P_k+1|T) C_k' (a sum of positive
- * semi-definite terms, so roundoff cannot make it indefinite over long records), symmetrised,
+ * semi-definite terms, so roundoff cannot make it indefinite over long records; the two are equal because
+ * C_k P_k+1|k = P_k|k F'), symmetrised,
  * Cov(x_k+1, x_k | T) = P_k+1|T C_k'.
  *
  * @param model - the model the filter ran with (its `discretize` is called again for each step)
@@ -56,7 +57,7 @@ export function allocateSmoothResult(n: number, T: number): SmoothResult {
  * @throws NotPositiveDefiniteError when a predicted covariance P_k+1|k is singular (e.g. a state with
  *   zero prior variance and zero process noise)
  * @see Rauch, Tung & Striebel (1965), AIAA J. 3:1445-1450; lag-one covariance: Shumway & Stoffer
- *   (1982), J. Time Series Anal. 3:253-264, and de Jong (1989)
+ *   (1982), J. Time Series Anal. 3:253-264, and de Jong (1989), J. Amer. Statist. Assoc. 84:1085-1088
  */
 export function rtsSmooth(model: StateSpaceModel, filtered: FilterResult, opts: RtsSmoothOptions = {}): SmoothResult {
   validateModel(model);
@@ -68,8 +69,10 @@ export function rtsSmooth(model: StateSpaceModel, filtered: FilterResult, opts: 
     throw new DimensionMismatchError('filter result arrays do not match its length and n');
   }
   if (T === 0) throw new RangeError('rtsSmooth: zero-length filter result');
+  const kernel = opts.kernel ?? 'auto';
+  if (kernel !== 'auto' && kernel !== 'general') throw new TypeError(`rtsSmooth: kernel must be 'auto' or 'general', got ${String(kernel)}`);
   const out = allocateSmoothResult(n, T);
-  if ((opts.kernel ?? 'auto') === 'auto' && model.m === 1) {
+  if (kernel === 'auto' && model.m === 1) {
     if (n === 2) {
       smoothAxis2(model, filtered, out);
       return out;
