@@ -110,3 +110,45 @@ describe('predictArrival: delta-method SD agrees with Monte Carlo for small stat
     expect(Math.abs(a.sdS - sd) / sd).toBeLessThan(0.05);
   });
 });
+
+describe('timeToContact: flags instead of silent NaN', () => {
+  it('an object moving away has approaching false and firstOrderS NaN; a thrown-up ball still has a second-order contact', () => {
+    const away = timeToContact({ posM: 1, velMps: 2, targetHeightM: 0 });
+    expect(away.approaching).toBe(false);
+    expect(Number.isNaN(away.firstOrderS)).toBe(true);
+    expect(away.reachable).toBe(false);
+    const up = timeToContact({ posM: 1, velMps: 2, accMps2: -g0, targetHeightM: 0 });
+    expect(up.approaching).toBe(false);
+    expect(up.reachable).toBe(true);
+    expect(up.secondOrderS).toBeCloseTo((2 + Math.sqrt(4 + 2 * g0)) / g0, 12);
+  });
+  it('a target moving with the object: closing speed is the relative velocity', () => {
+    const t = timeToContact({ posM: 2, velMps: -3, targetHeightM: 1, targetVelMps: -1 });
+    expect(t.closingSpeedMps).toBe(2);
+    expect(t.firstOrderS).toBeCloseTo(0.5, 14);
+  });
+});
+
+describe('axisKinematics maps each hypothesis state to (p, v, a) and its covariance', () => {
+  const x3 = Float64Array.of(0, 0, 0, 1.2, -0.5, 9.7);
+  const P3 = new Float64Array(18);
+  P3.set([0.01, 0.002, 0.003, 0.002, 0.04, 0.005, 0.003, 0.005, 0.09], 9);
+  it('fitted gravity: a = -g, cross-covariances with a change sign, Var(a) = Var(g)', () => {
+    const k = axisKinematics({ id: 'fg', kind: 'fitted-gravity' }, 'vertical', x3, P3, 1);
+    expect(k.accMps2).toBe(-9.7);
+    expect(Array.from(k.cov)).toEqual([0.01, 0.002, -0.003, 0.002, 0.04, -0.005, -0.003, -0.005, 0.09]);
+  });
+  it('free acceleration: a is the third state as is', () => {
+    const k = axisKinematics({ id: 'fa', kind: 'free-acceleration' }, 'vertical', x3, P3, 1);
+    expect(k.accMps2).toBe(9.7);
+    expect(k.cov[2]).toBe(0.003);
+  });
+  it('gravity: a = -g fixed with zero variance; constant velocity: a = 0; bad sample index is a RangeError', () => {
+    const x2 = Float64Array.of(1, -2), P2 = Float64Array.of(0.1, 0.01, 0.01, 0.2);
+    const g = axisKinematics({ id: 'g', kind: 'gravity', gMps2: 4.9 }, 'vertical', x2, P2, 0);
+    expect(g.accMps2).toBe(-4.9);
+    expect(Array.from(g.cov)).toEqual([0.1, 0.01, 0, 0.01, 0.2, 0, 0, 0, 0]);
+    expect(axisKinematics({ id: 'cv', kind: 'constant-velocity' }, 'vertical', x2, P2, 0).accMps2).toBe(0);
+    expect(() => axisKinematics({ id: 'cv', kind: 'constant-velocity' }, 'vertical', x2, P2, 1)).toThrow(RangeError);
+  });
+});
