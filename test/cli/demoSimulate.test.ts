@@ -25,7 +25,7 @@ async function quiet<T>(fn: () => Promise<T>): Promise<{ value: T; out: string; 
 }
 
 describe('the shipped demo study (assets/demo)', () => {
-  it('is what the simulator generates today (trial list, a C3D file's marker data) and says it is invented', async () => {
+  it('is what the simulator generates today (trial list, the marker data of a C3D file) and says it is invented', async () => {
     const { trials } = demoStudy();
     const specs = trials.map((t) => ({ ...t.spec, emgFile: t.spec.file.replace(/\.c3d$/, '_emg.edf'), emgOffsetS: 0 }));
     expect(await readFile(join(assets, 'trials.csv'), 'utf8')).toBe(trialListCsv(specs));
