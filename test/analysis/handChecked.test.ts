@@ -95,4 +95,15 @@ describe('hand-checked free-fall trial (every trials.csv number from FACTS.md)',
     expect(g.usable).toBe('true');
     expect(g.excluded).toBe('false');
   });
+  it('with the cutoff a fixed 300 ms after release, gravity still predicts contact exactly (ttc 253.10 ms)', () => {
+    const ev2 = evaluateStudy([prepared], { ...settings, cutoff: { kind: 'after-release', afterMs: 300 } }, journal);
+    const h = ev2.trials[0].hypotheses.find((x) => x.hypothesis === 'gravity')!;
+    expect(h.ttcMs).toBeCloseTo(253.1, 0);
+    expect(h.cutoffS).toBeCloseTo(prepared.releaseS! + 0.3, 9);
+  });
+  it('with the causal filtered state the gravity prediction stays within 2 ms', () => {
+    const ev3 = evaluateStudy([prepared], { ...settings, stateSource: 'filtered' }, journal);
+    const h = ev3.trials[0].hypotheses.find((x) => x.hypothesis === 'gravity')!;
+    expect(Math.abs(h.ttcMs - 253.1)).toBeLessThan(2);
+  });
 });
