@@ -89,36 +89,64 @@ function sweep1(sos: Sos, buf: Float64Array, s: number, first: number, count: nu
   let y2 = (-state[s * 2] - a1 * y1) / a2;
   const warm = settleSamples(a1, a2);
   let k = 0;
-  if (warm > 0 && count > 4 * warm) {
-    // Two chains in flight: chain A filters the first `half` samples from the true state; chain B starts
-    // `warm` samples before `half` from rest, by which time its start-up error has decayed below 1e-18 of the
-    // state, and writes from `half` on. Chain B reads each input before chain A overwrites it.
-    const half = (count + warm) >> 1;
-    let u1 = 0, u2 = 0, v1 = 0, v2 = 0;
-    let iB = first + (half - warm) * step;
-    for (; k < warm; k++, i += step, iB += step) {
-      const x = buf[i];
-      const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
+  if (warm > 0 && count > 8 * warm) {
+    // Four chains in flight. Chain c (0..3) writes samples [c L, (c + 1) L) (the last one up to count); chains 1-3
+    // first run `warm` samples before their range from rest, by which time their start-up error has decayed
+    // below 1e-18 of the state. Every chain reads an input before the chain to its left overwrites it.
+    const L = Math.ceil(count / 4);
+    const R = count - 3 * L;
+    let p1 = 0, q1 = 0, p2 = 0, q2 = 0;
+    let c1 = 0, d1 = 0, c2 = 0, d2 = 0;
+    let e1 = 0, f1 = 0, e2 = 0, f2 = 0;
+    let iB = first + (L - warm) * step;
+    let iC = first + (2 * L - warm) * step;
+    let iD = first + (3 * L - warm) * step;
+    for (let j = 0; j < warm; j++, iB += step, iC += step, iD += step) {
       const u = buf[iB];
-      const v = b0 * u + b1 * u1 + b2 * u2 - a2 * v2 - a1 * v1;
-      x2 = x1; x1 = x; y2 = y1; y1 = y;
-      u2 = u1; u1 = u; v2 = v1; v1 = v;
-      buf[i] = y;
+      const v = b0 * u + b1 * p1 + b2 * p2 - a2 * q2 - a1 * q1;
+      p2 = p1; p1 = u; q2 = q1; q1 = v;
+      const w = buf[iC];
+      const z = b0 * w + b1 * c1 + b2 * c2 - a2 * d2 - a1 * d1;
+      c2 = c1; c1 = w; d2 = d1; d1 = z;
+      const g = buf[iD];
+      const h = b0 * g + b1 * e1 + b2 * e2 - a2 * f2 - a1 * f1;
+      e2 = e1; e1 = g; f2 = f1; f1 = h;
     }
-    for (; k < half; k++, i += step, iB += step) {
+    for (let j = 0; j < R; j++, i += step, iB += step, iC += step, iD += step) {
       const x = buf[i];
       const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
-      const u = buf[iB];
-      const v = b0 * u + b1 * u1 + b2 * u2 - a2 * v2 - a1 * v1;
       x2 = x1; x1 = x; y2 = y1; y1 = y;
-      u2 = u1; u1 = u; v2 = v1; v1 = v;
+      const u = buf[iB];
+      const v = b0 * u + b1 * p1 + b2 * p2 - a2 * q2 - a1 * q1;
+      p2 = p1; p1 = u; q2 = q1; q1 = v;
+      const w = buf[iC];
+      const z = b0 * w + b1 * c1 + b2 * c2 - a2 * d2 - a1 * d1;
+      c2 = c1; c1 = w; d2 = d1; d1 = z;
+      const g = buf[iD];
+      const h = b0 * g + b1 * e1 + b2 * e2 - a2 * f2 - a1 * f1;
+      e2 = e1; e1 = g; f2 = f1; f1 = h;
       buf[i] = y;
       buf[iB] = v;
+      buf[iC] = z;
+      buf[iD] = h;
     }
-    // Chain B continues alone over what is left (at most one sample when count + warm is odd).
-    k = half + (half - warm);
-    i = iB;
-    x1 = u1; x2 = u2; y1 = v1; y2 = v2;
+    // Chains 0-2 have L - R (at most 3) samples left; chain 3 is done and holds the final history.
+    for (let j = R; j < L; j++, i += step, iB += step, iC += step) {
+      const x = buf[i];
+      const y = b0 * x + b1 * x1 + b2 * x2 - a2 * y2 - a1 * y1;
+      x2 = x1; x1 = x; y2 = y1; y1 = y;
+      buf[i] = y;
+      const u = buf[iB];
+      const v = b0 * u + b1 * p1 + b2 * p2 - a2 * q2 - a1 * q1;
+      p2 = p1; p1 = u; q2 = q1; q1 = v;
+      buf[iB] = v;
+      const w = buf[iC];
+      const z = b0 * w + b1 * c1 + b2 * c2 - a2 * d2 - a1 * d1;
+      c2 = c1; c1 = w; d2 = d1; d1 = z;
+      buf[iC] = z;
+    }
+    k = count;
+    x1 = e1; x2 = e2; y1 = f1; y2 = f2;
   }
   for (; k < count; k++, i += step) {
     const x = buf[i];
