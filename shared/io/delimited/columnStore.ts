@@ -62,11 +62,6 @@ export class ColumnStore {
     return this.cols;
   }
 
-  /** The backing array of column k (valid until the next growth); write row i at index i. */
-  column(k: number): Float64Array {
-    return this.cols[k];
-  }
-
   /**
    * The filled part of every column. A view when the unused capacity is small (at most 1/8),
    * otherwise a trimmed copy made one column at a time; the store must not be used afterwards.
