@@ -29,6 +29,7 @@ export default defineConfig({
   base: './',
   publicDir: fileURLToPath(new URL('./renderer/public', import.meta.url)),
   plugins: [cspMeta()],
+  mode: 'production',
   build: {
     outDir,
     emptyOutDir: true,

@@ -27,7 +27,15 @@ export function electronRuntimePath() {
 
 /** Builds the renderer into dist/. */
 export async function buildRenderer({ quiet = true } = {}) {
-  await build({ configFile: join(ROOT, 'vite.config.ts'), logLevel: quiet ? 'warn' : 'info' });
+  // always React's production build and JSX transform, also when called from the test runner (NODE_ENV=test)
+  const saved = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ configFile: join(ROOT, 'vite.config.ts'), logLevel: quiet ? 'warn' : 'info' });
+  } finally {
+    if (saved === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = saved;
+  }
   return join(ROOT, 'dist');
 }
 

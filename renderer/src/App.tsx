@@ -342,7 +342,7 @@ export function App({ host }: { host: Host }) {
       <footer className="status">
         {state.evaluation ? (
           <span data-testid="status-evaluation">
-            {state.evaluation.trials.length} trial×muscle rows · {state.evaluation.hypotheses.length} hypotheses · evaluated in {state.evaluationMs.toFixed(0)} ms · settings {state.evaluation.settingsHash.slice(0, 8)}
+            {state.evaluation.trials.length} trial×muscle rows · {state.evaluation.hypotheses.length} hypotheses · evaluated in {state.evaluationMs.toFixed(0)} ms{state.refining ? ' · refining intervals…' : ` · settings ${state.evaluation.settingsHash.slice(0, 8)}`}
           </span>
         ) : (
           <span>{host.kind === 'electron' ? 'Desktop' : 'Browser build'}</span>

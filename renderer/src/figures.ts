@@ -1,5 +1,5 @@
 /** Figure export: every plot of the current view as PNG and SVG through plotly's own image export. */
-import Plotly from 'plotly.js-dist-min';
+import { loadPlotly } from './plot/loadPlotly';
 import type { OutputFile } from './host/host';
 
 /** Bytes of a `data:` URL (base64 or percent-encoded). */
@@ -22,6 +22,7 @@ export function dataUrlBytes(url: string): Uint8Array {
  * @param formats - image formats to write
  */
 export async function renderFigures(root: ParentNode, formats: ('png' | 'svg')[] = ['png', 'svg']): Promise<OutputFile[]> {
+  const Plotly = await loadPlotly();
   const files: OutputFile[] = [];
   for (const el of Array.from(root.querySelectorAll<HTMLElement>('[data-plot-id]'))) {
     const id = (el.dataset.plotId ?? 'figure').replace(/[^\w.-]+/g, '_');

@@ -3,7 +3,8 @@
  * follows the theme, resizes with its box, and forwards clicks and zoom/drag (relayout) events.
  */
 import { useEffect, useRef } from 'react';
-import Plotly, { type Config, type Layout, type PlotData, type PlotlyHTMLElement } from 'plotly.js-dist-min';
+import type { Config, Layout, PlotData, PlotlyHTMLElement } from 'plotly.js-dist-min';
+import { loadPlotly } from './loadPlotly';
 import { THEMES, type ThemeName } from './palette';
 
 export interface PlotProps {
@@ -47,12 +48,12 @@ export function Plot(props: PlotProps) {
     const el = ref.current;
     if (!el) return;
     const ro = new ResizeObserver(() => {
-      if ((el as unknown as PlotlyHTMLElement).layout) Plotly.Plots.resize(el);
+      if ((el as unknown as PlotlyHTMLElement).layout) void loadPlotly().then((Plotly) => Plotly.Plots.resize(el));
     });
     ro.observe(el);
     return () => {
       ro.disconnect();
-      Plotly.purge(el);
+      void loadPlotly().then((Plotly) => Plotly.purge(el));
     };
   }, []);
 
@@ -60,13 +61,13 @@ export function Plot(props: PlotProps) {
     const el = ref.current;
     if (!el) return;
     let cancelled = false;
-    void Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
+    void loadPlotly().then((Plotly) => Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
       displaylogo: false,
       responsive: false,
       modeBarButtonsToRemove: ['sendDataToCloud', 'lasso2d', 'select2d'],
       toImageButtonOptions: { filename: props.plotId },
       ...props.config,
-    }).then((gd) => {
+    })).then((gd) => {
       if (cancelled) return;
       gd.removeAllListeners('plotly_click');
       gd.removeAllListeners('plotly_relayout');

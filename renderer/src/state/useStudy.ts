@@ -25,6 +25,8 @@ export interface StudyState {
   evaluation: StudyEvaluation | null;
   /** Time the worker spent in the last evaluation, ms. */
   evaluationMs: number;
+  /** True while the shown evaluation is the quick one (bootstrap intervals and delay sweep still coming). */
+  refining: boolean;
   progress: Progress | null;
   error: string | null;
   dirty: boolean;
@@ -44,6 +46,7 @@ export function useStudy(host: Host) {
     exclusions: {},
     evaluation: null,
     evaluationMs: 0,
+    refining: false,
     progress: null,
     error: null,
     dirty: false,
@@ -53,21 +56,38 @@ export function useStudy(host: Host) {
   const stateRef = useRef(state);
   stateRef.current = state;
 
-  useEffect(() => () => client.terminate(), [client]);
+  // the worker lives as long as the window (StrictMode's trial unmount must not stop it)
 
   const fail = useCallback((err: unknown) => {
     setState((s) => ({ ...s, progress: null, error: err instanceof Error ? err.message : String(err) }));
   }, []);
 
+  const fullTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
+
+  /**
+   * Re-evaluates in two steps: a quick evaluation (no bootstrap, no delay sweep; tens of ms) answers the
+   * click at once, and the full one follows once the user pauses (400 ms), filling in the intervals.
+   */
   const evaluate = useCallback(
     async (settings: StudySettings, journal: OnsetJournalLike, exclusions: Exclusions) => {
       const seq = ++requestSeq.current;
+      if (fullTimer.current) clearTimeout(fullTimer.current);
+      const onProgress = (done: number, total: number, label: string) => {
+        if (seq === requestSeq.current) setState((s) => ({ ...s, progress: { done, total, label } }));
+      };
       try {
-        const r = await client.call({ type: 'evaluate', settings, journal, exclusions }, (done, total, label) => {
-          if (seq === requestSeq.current) setState((s) => ({ ...s, progress: { done, total, label } }));
-        });
+        const r = await client.call({ type: 'evaluate', settings, journal, exclusions, quick: true }, onProgress);
         if (seq !== requestSeq.current) return;
-        setState((s) => ({ ...s, evaluation: r.evaluation, evaluationMs: r.ms, progress: null, error: null }));
+        setState((s) => ({ ...s, evaluation: r.evaluation, evaluationMs: r.ms, refining: true, progress: null, error: null }));
+        fullTimer.current = setTimeout(() => {
+          if (seq !== requestSeq.current) return;
+          void client
+            .call({ type: 'evaluate', settings, journal, exclusions, quick: false })
+            .then((full) => {
+              if (seq === requestSeq.current) setState((s) => ({ ...s, evaluation: full.evaluation, evaluationMs: full.ms, refining: false }));
+            })
+            .catch((err) => seq === requestSeq.current && fail(err));
+        }, 400);
       } catch (err) {
         if (seq === requestSeq.current) fail(err);
       }

@@ -7,7 +7,7 @@ import { useMemo, useState } from 'react';
 import type { PlotData, Layout } from 'plotly.js-dist-min';
 import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/types';
 import { Plot } from '../plot/Plot';
-import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, type ThemeName } from '../plot/palette';
+import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import { fmtMs } from './trialRows';
 
 export interface ComparisonViewProps {
@@ -34,7 +34,8 @@ export function ComparisonView(props: ComparisonViewProps) {
   const scatter = useMemo(() => {
     const rows = evaluation.trials.filter((t) => t.muscle === muscle && t.usable && (subject === 'all' || t.subject === subject));
     const conditions = [...new Set(rows.map((r) => r.condition))].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
-    const data: PlotData[] = evaluation.hypotheses.map((hid, k) => {
+    const data: PlotData[] = evaluation.hypotheses.map((hid) => {
+      const k = hypothesisStyleIndex(hid, evaluation.hypotheses);
       const x: (number | string)[] = [];
       const y: number[] = [];
       const ids: string[] = [];
@@ -124,15 +125,18 @@ export function ComparisonView(props: ComparisonViewProps) {
     const pick = list.find((d) => d.subject === subject) ?? list[0];
     if (!pick) return null;
     const nd = pick.delaysMs.length;
-    const data: PlotData[] = pick.hypotheses.map((hid, k) => ({
-      type: 'scatter',
-      mode: 'lines+markers',
-      name: labels[hid] ?? hid,
-      x: Array.from(pick.delaysMs),
-      y: Array.from({ length: nd }, (_, i) => pick.posterior[i * pick.hypotheses.length + k]),
-      line: { color: hypothesisColour(settings.hypotheses.findIndex((h) => h.id === hid)), dash: HYPOTHESIS_DASHES[k % HYPOTHESIS_DASHES.length] },
-      marker: { symbol: HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length] },
-    }));
+    const data: PlotData[] = pick.hypotheses.map((hid, k) => {
+      const style = hypothesisStyleIndex(hid, pick.hypotheses);
+      return {
+        type: 'scatter',
+        mode: 'lines+markers',
+        name: labels[hid] ?? hid,
+        x: Array.from(pick.delaysMs),
+        y: Array.from({ length: nd }, (_, i) => pick.posterior[i * pick.hypotheses.length + k]),
+        line: { color: hypothesisColour(style), dash: HYPOTHESIS_DASHES[style % HYPOTHESIS_DASHES.length] },
+        marker: { symbol: HYPOTHESIS_SYMBOLS[style % HYPOTHESIS_SYMBOLS.length] },
+      };
+    });
     const layout: Layout = {
       height: 300,
       margin: { l: 70, r: 20, t: 20, b: 50 },
@@ -190,9 +194,9 @@ export function ComparisonView(props: ComparisonViewProps) {
           <thead>
             <tr>
               <th scope="col">Subject · condition</th>
-              {evaluation.hypotheses.map((h, k) => (
+              {evaluation.hypotheses.map((h) => (
                 <th scope="col" key={h}>
-                  <span className="swatch" style={{ background: hypothesisColour(k) }} />
+                  <span className="swatch" style={{ background: hypothesisColour(hypothesisStyleIndex(h, evaluation.hypotheses)) }} />
                   {labels[h] ?? h}
                 </th>
               ))}

@@ -6,7 +6,7 @@
 import { useState } from 'react';
 import type { AnalysisHypothesis, OnsetSettingsLike, StudySettings } from '../../../shared/analysis/types';
 import { STANDARD_HYPOTHESES } from '../../../shared/analysis/defaultSettings';
-import { hypothesisColour } from '../plot/palette';
+import { hypothesisColour, hypothesisStyleIndex } from '../plot/palette';
 
 const G0 = 9.80665;
 
@@ -50,12 +50,12 @@ export function SettingsPanel({ settings, onChange }: SettingsPanelProps) {
       <h2>Hypotheses</h2>
       <ul className="hypotheses">
         {catalog.map((h) => {
-          const k = settings.hypotheses.findIndex((s) => s.id === h.id);
+          const k = hypothesisStyleIndex(h.id, settings.hypotheses.map((x) => x.id));
           return (
             <li key={h.id}>
               <label>
                 <input type="checkbox" checked={chosen.has(h.id)} onChange={(e) => toggle(h, e.target.checked)} data-hypothesis={h.id} />
-                {k >= 0 && <span className="swatch" style={{ background: hypothesisColour(k) }} />}
+                <span className="swatch" style={{ background: chosen.has(h.id) ? hypothesisColour(k) : 'transparent' }} />
                 {h.label ?? h.id}
               </label>
             </li>
@@ -92,7 +92,7 @@ export function SettingsPanel({ settings, onChange }: SettingsPanelProps) {
       <h2>EMG onset</h2>
       <label className="block">
         Detector{' '}
-        <select value={settings.onset.method} onChange={(e) => onChange({ ...settings, onset: { method: e.target.value as OnsetSettingsLike['method'] } })} aria-label="Onset detector">
+        <select value={settings.onset.method} onChange={(e) => onChange({ ...settings, onset: { ...settings.onset, method: e.target.value as OnsetSettingsLike['method'] } })} aria-label="Onset detector">
           {ONSET_METHODS.map((m) => (
             <option key={m.value} value={m.value}>
               {m.label}

@@ -8,7 +8,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent }
 import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/types';
 import { Plot } from '../plot/Plot';
 import type { ThemeName } from '../plot/palette';
-import { hypothesisColour } from '../plot/palette';
+import { hypothesisColour, hypothesisStyleIndex } from '../plot/palette';
 import type { TrialDetail } from '../worker/protocol';
 import { buildTrialFigure, defaultWindowS } from './trialFigure';
 import { fmtMs, fmtS } from './trialRows';
@@ -63,10 +63,16 @@ export function TrialView(props: TrialViewProps) {
 
   const hypothesisIds = useMemo(() => props.settings.hypotheses.map((h) => h.id), [props.settings.hypotheses]);
   const hypothesisLabels = useMemo(() => Object.fromEntries(props.settings.hypotheses.map((h) => [h.id, h.label ?? h.id])), [props.settings.hypotheses]);
-  const figure = useMemo(
-    () => (detail && windowS ? buildTrialFigure(detail, props.evaluation, hypothesisIds, hypothesisLabels, activeMuscle, windowS, widthPx, props.theme) : null),
-    [detail, props.evaluation, hypothesisIds, hypothesisLabels, activeMuscle, windowS, widthPx, props.theme],
-  );
+  // Plotly keeps a user's shape drags across redraws while `editrevision` stays the same; a new revision
+  // after every evaluation and every drag puts each line back where the evaluation says it is (undo, or a
+  // drag of a line that is not an onset)
+  const [shapeRevision, setShapeRevision] = useState(0);
+  useEffect(() => setShapeRevision((r) => r + 1), [props.evaluation]);
+  const figure = useMemo(() => {
+    if (!detail || !windowS) return null;
+    const f = buildTrialFigure(detail, props.evaluation, hypothesisIds, hypothesisLabels, activeMuscle, windowS, widthPx, props.theme);
+    return { ...f, layout: { ...f.layout, editrevision: `${props.trialId}:${shapeRevision}` } };
+  }, [detail, props.evaluation, props.trialId, hypothesisIds, hypothesisLabels, activeMuscle, windowS, widthPx, props.theme, shapeRevision]);
   const config = useMemo(() => ({ edits: { shapePosition: true }, scrollZoom: false }), []);
 
   const rows = useMemo(() => props.evaluation?.trials.filter((t) => t.trialId === props.trialId) ?? [], [props.evaluation, props.trialId]);
@@ -79,6 +85,7 @@ export function TrialView(props: TrialViewProps) {
       for (const [key, value] of Object.entries(update)) {
         const m = /^shapes\[(\d+)\]\.x0$/.exec(key);
         if (m) {
+          setShapeRevision((r) => r + 1);
           const muscle = figure.onsetShapes[Number(m[1])];
           const row = rows.find((r) => r.muscle === muscle);
           if (muscle && typeof value === 'number' && row) {
@@ -206,7 +213,7 @@ export function TrialView(props: TrialViewProps) {
               <tr key={`${r.muscle}-${h.hypothesis}`}>
                 <td>{r.muscle}</td>
                 <td>
-                  <span className="swatch" style={{ background: hypothesisColour(hypothesisIds.indexOf(h.hypothesis)) }} />
+                  <span className="swatch" style={{ background: hypothesisColour(hypothesisStyleIndex(h.hypothesis, hypothesisIds)) }} />
                   {hypothesisLabels[h.hypothesis] ?? h.hypothesis}
                 </td>
                 <td className="num">{fmtS(h.cutoffS)}</td>

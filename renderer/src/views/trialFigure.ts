@@ -8,7 +8,7 @@
 import type { PlotData, Layout } from 'plotly.js-dist-min';
 import type { PreparedTrial, StudyEvaluation } from '../../../shared/analysis/types';
 import { minMaxDecimate } from '../../../shared/plot/minMaxDecimate';
-import { HYPOTHESIS_DASHES, THEMES, hypothesisColour, type ThemeName } from '../plot/palette';
+import { HYPOTHESIS_DASHES, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import type { TrialDetail } from '../worker/protocol';
 
 /** Which shape index belongs to which muscle's onset line (for drag events). */
@@ -113,7 +113,7 @@ export function buildTrialFigure(
   const row = evaluation?.trials.find((t) => t.trialId === p.trial.id && t.muscle === activeMuscle);
   if (row) {
     row.hypotheses.forEach((ev) => {
-      const k = hypothesisIds.indexOf(ev.hypothesis);
+      const k = hypothesisStyleIndex(ev.hypothesis, hypothesisIds);
       const colour = hypothesisColour(k);
       const label = hypothesisLabels[ev.hypothesis] ?? ev.hypothesis;
       if (!Number.isFinite(ev.cutoffS)) return;

@@ -8,7 +8,9 @@ import type { OnsetJournalLike, PreparedTrial, FailedTrial, StudySettings, Trial
 import type { Recording } from '../../../shared/recording/types';
 import { evaluateStudy } from '../../../shared/analysis/evaluateStudy';
 import { prepareTrial } from '../../../shared/analysis/prepareTrial';
-import { trialsCsv, modelsCsv, methodsText } from './outputs';
+import { trialsCsv } from '../../../shared/analysis/trialsCsv';
+import { modelsCsv } from '../../../shared/analysis/modelsCsv';
+import { methodsText } from '../../../shared/analysis/methodsText';
 import { readRecording } from '../../../shared/io/readRecording';
 import { serializeError } from '../../../shared/errors';
 import { generateDemoStudy } from './demoStudy';
@@ -119,13 +121,14 @@ function prepareAll(id: number, settings: StudySettings): WorkerReplies['prepare
   return { prepared: prepared.length, failed, ms: performance.now() - t0 };
 }
 
-function evaluate(settings: StudySettings, journal: OnsetJournalLike, exclusions: Exclusions, skipDelaySweep: boolean, id: number): WorkerReplies['evaluate'] {
+function evaluate(settings: StudySettings, journal: OnsetJournalLike, exclusions: Exclusions, quick: boolean, id: number): WorkerReplies['evaluate'] {
   const s = requireState();
   if (preparationKey(settings) !== s.preparedWith) prepareAll(id, settings);
   s.settings = settings;
   const t0 = performance.now();
-  const evaluation = evaluateStudy(withExclusions(s.prepared, exclusions), settings, journal, { failed: s.failed, skipDelaySweep });
-  return { evaluation, ms: performance.now() - t0 };
+  const used = quick ? { ...settings, bootstrap: { ...settings.bootstrap, replicates: 0 } } : settings;
+  const evaluation = evaluateStudy(withExclusions(s.prepared, exclusions), used, journal, { failed: s.failed, skipDelaySweep: quick });
+  return { evaluation, ms: performance.now() - t0, quick };
 }
 
 function openState(name: string, settings: StudySettings, trials: TrialSpec[], recordings: Map<string, Recording>): WorkerState {
@@ -145,9 +148,9 @@ function handle(id: number, request: WorkerRequest): { value: unknown; transfer?
       const study = parseStudyText(request.name, request.text);
       const recordings = new Map<string, Recording>();
       if (study.demo) for (const t of generateDemoStudy(study.demo).trials) recordings.set(t.spec.id, t.recording);
-      state = openState(request.name, study.settings, study.trials, recordings);
+      state = openState(study.name || request.name, study.settings, study.trials, recordings);
       state.demo = study.demo;
-      const opened: StudyOpened = { name: request.name, settings: study.settings, trials: study.trials, journal: study.journal, missing: missingFiles(state), demo: !!study.demo };
+      const opened: StudyOpened = { name: state.name, settings: study.settings, trials: study.trials, journal: study.journal, missing: missingFiles(state), demo: !!study.demo };
       return { value: opened };
     }
     case 'addFile': {
@@ -158,7 +161,7 @@ function handle(id: number, request: WorkerRequest): { value: unknown; transfer?
     case 'prepare':
       return { value: prepareAll(id, request.settings ?? requireState().settings) };
     case 'evaluate':
-      return { value: evaluate(request.settings, request.journal, request.exclusions, request.skipDelaySweep ?? false, id) };
+      return { value: evaluate(request.settings, request.journal, request.exclusions, request.quick ?? false, id) };
     case 'trialDetail': {
       const s = requireState();
       const prepared = s.prepared.find((p) => p.trial.id === request.trialId);
@@ -189,7 +192,7 @@ function handle(id: number, request: WorkerRequest): { value: unknown; transfer?
         const reason = request.exclusions[t.id];
         return { ...t, excluded: reason !== undefined, excludeReason: reason };
       });
-      return { value: { text: studyFileText(request.settings, trials, request.journal, s.demo) } };
+      return { value: { text: studyFileText(s.name, request.settings, trials, request.journal, s.demo) } };
     }
   }
 }

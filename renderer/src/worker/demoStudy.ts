@@ -4,12 +4,16 @@
  * the whole workflow. Larger variants drive the browser benchmark.
  */
 import { simulateStudy, type SimulatedTrial } from '../../../shared/simulate/simulateStudy';
+import { demoStudy } from '../../../shared/simulate/demoStudy';
 import type { SimulatedSubject } from '../../../shared/simulate/simulatedSubject';
 import type { StudySettings } from '../../../shared/analysis/types';
 import type { DemoSpec } from './protocol';
 
-/** The demo shown by "Open demo study": 3 invented subjects x 24 trials, two forearm muscles. */
-export const DEFAULT_DEMO: DemoSpec = { subjects: 3, trialsPerSubject: 24, muscles: 2, postS: 0.3, seed: 20240601 };
+/**
+ * The demo shown by "Open demo study": the bundled demo (shared/simulate demoStudy, written to
+ * assets/demo by `forecatch demo`): 3 invented subjects x 24 trials, two forearm muscles.
+ */
+export const DEFAULT_DEMO: DemoSpec = { standard: true, subjects: 3, trialsPerSubject: 24, muscles: 2, postS: 0.3, seed: 20260101 };
 
 /** Invented catchers with different internal gravities (0.6 g, 1 g, 0.2 g). */
 function demoSubjects(count: number): SimulatedSubject[] {
@@ -35,6 +39,7 @@ export function demoMuscles(count: number): string[] {
  * @returns simulated trials (spec + recording) and the study settings
  */
 export function generateDemoStudy(spec: DemoSpec): { trials: SimulatedTrial[]; settings: StudySettings } {
+  if (spec.standard) return demoStudy();
   const subjects = demoSubjects(spec.subjects);
   return simulateStudy({
     subjects,
@@ -46,12 +51,14 @@ export function generateDemoStudy(spec: DemoSpec): { trials: SimulatedTrial[]; s
 }
 
 /**
- * Reads a demo size from the page's hash, e.g. `#demo`, `#demo?subjects=4&trials=50&muscles=16&post=59`.
+ * Reads the demo asked for by the page's hash: `#demo` is the bundled demo; `#demo?subjects=4&trials=50&muscles=16&post=59`
+ * generates one of that size (invented subjects s1, s2, ...; for tests and benchmarks).
  * @returns the spec, or null when the hash does not ask for a demo
  */
 export function demoFromHash(hash: string): DemoSpec | null {
   const m = /^#demo(?:\?(.*))?$/.exec(hash);
   if (!m) return null;
+  if (!m[1]) return DEFAULT_DEMO;
   const q = new URLSearchParams(m[1] ?? '');
   const int = (key: string, fallback: number, max: number) => {
     const v = Number(q.get(key));

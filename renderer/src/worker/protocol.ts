@@ -8,6 +8,8 @@ import type { SerializedError } from '../../../shared/errors';
 
 /** Size of a generated demo study (the bundled demo, or larger ones for benchmarks). */
 export interface DemoSpec {
+  /** True for the bundled demo study (shared/simulate demoStudy, the same as assets/demo); the sizes below are then ignored. */
+  standard?: boolean;
   subjects: number;
   trialsPerSubject: number;
   /** Muscle count (channel names FCR, ECR, then M3, M4, ...). */
@@ -32,7 +34,8 @@ export type WorkerRequest =
   | { type: 'openStudy'; name: string; text: string }
   | { type: 'addFile'; relativePath: string; bytes: Uint8Array }
   | { type: 'prepare'; settings?: StudySettings }
-  | { type: 'evaluate'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions; skipDelaySweep?: boolean }
+  /** `quick`: no bootstrap intervals and no delay sweep (the instant answer to a click; a full one follows). */
+  | { type: 'evaluate'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions; quick?: boolean }
   | { type: 'trialDetail'; trialId: string }
   | { type: 'exports'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions }
   | { type: 'studyText'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions };
@@ -43,7 +46,7 @@ export interface WorkerReplies {
   openStudy: StudyOpened;
   addFile: { received: number; missing: string[] };
   prepare: { prepared: number; failed: FailedTrial[]; ms: number };
-  evaluate: { evaluation: StudyEvaluation; ms: number };
+  evaluate: { evaluation: StudyEvaluation; ms: number; quick: boolean };
   trialDetail: TrialDetail;
   exports: { trialsCsv: string; modelsCsv: string; methodsTxt: string };
   studyText: { text: string };

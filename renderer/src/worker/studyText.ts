@@ -1,54 +1,70 @@
 /**
- * Study files as the renderer reads and writes them: JSON with the settings, the trial list and the
- * onset edit journal.
+ * Study files as the renderer opens and saves them, through the shared study format (shared/study): a
+ * JSON study file (settings, trials, onset journal; older versions migrated) or a trial-list CSV. A study
+ * made from the generated demo also records the demo's size and seed, so reopening it regenerates the
+ * same invented recordings.
  */
 import type { OnsetJournalLike, StudySettings, TrialSpec } from '../../../shared/analysis/types';
 import { defaultStudySettings } from '../../../shared/analysis/defaultSettings';
-import { ParseError } from '../../../shared/errors';
+import { parseStudyFile } from '../../../shared/study/parseStudyFile';
+import { serializeStudy, STUDY_SCHEMA_VERSION } from '../../../shared/study/studyFile';
+import { importTrialList } from '../../../shared/study/importTrialList';
+import { FORECATCH_VERSION } from '../../../shared/version';
 import type { DemoSpec } from './protocol';
 
-/** Format tag written into every study file. */
-export const STUDY_FORMAT = 'forecatch-study';
+/** An opened study: what the worker needs to prepare it. */
+export interface ParsedStudy {
+  name: string;
+  settings: StudySettings;
+  trials: TrialSpec[];
+  journal: OnsetJournalLike;
+  demo?: DemoSpec;
+}
 
-/**
- * Parses a study file.
- * @param name - file name, for error messages
- * @param text - its content
- * @throws ParseError naming the file and what was expected
- */
-export function parseStudyText(name: string, text: string): { settings: StudySettings; trials: TrialSpec[]; journal: OnsetJournalLike; demo?: DemoSpec } {
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (err) {
-    throw new ParseError({ file: name, line: 1 }, 'a JSON study file', (err as Error).message);
-  }
-  const o = raw as { settings?: Partial<StudySettings>; trials?: unknown; journal?: OnsetJournalLike; demo?: DemoSpec };
-  if (typeof o !== 'object' || o === null || !Array.isArray(o.trials)) throw new ParseError({ file: name, line: 1 }, 'an object with a "trials" array');
-  const trials = (o.trials as Partial<TrialSpec>[]).map((t, i): TrialSpec => {
-    if (typeof t?.id !== 'string' || typeof t.file !== 'string') throw new ParseError({ file: name, line: 1, column: `trials[${i}]` }, 'a trial with string "id" and "file"');
-    return {
-      id: t.id,
-      subject: String(t.subject ?? ''),
-      condition: String(t.condition ?? ''),
-      file: t.file,
-      emgFile: t.emgFile,
-      emgOffsetS: t.emgOffsetS,
-      excluded: t.excluded === true,
-      excludeReason: t.excludeReason,
-      note: t.note,
-      covariates: t.covariates ?? {},
-    };
-  });
-  const journal = o.journal && Array.isArray(o.journal.edits) ? { edits: o.journal.edits, cursor: Math.min(o.journal.cursor ?? o.journal.edits.length, o.journal.edits.length) } : { edits: [], cursor: 0 };
-  const demo = o.demo && typeof o.demo.subjects === 'number' && typeof o.demo.seed === 'number' ? o.demo : undefined;
-  return { settings: defaultStudySettings(o.settings ?? {}), trials, journal, demo };
+function demoSpecOf(value: unknown): DemoSpec | undefined {
+  const d = value as Partial<DemoSpec> | undefined;
+  const ok = (v: unknown, max: number) => typeof v === 'number' && Number.isFinite(v) && v > 0 && v <= max;
+  if (d?.standard === true) return { standard: true, subjects: 3, trialsPerSubject: 24, muscles: 2, postS: 0.3, seed: 20260101 };
+  return d && ok(d.subjects, 50) && ok(d.trialsPerSubject, 500) && ok(d.muscles, 32) && ok(d.postS, 600) && ok(d.seed, 2 ** 31)
+    ? { subjects: d.subjects!, trialsPerSubject: d.trialsPerSubject!, muscles: d.muscles!, postS: d.postS!, seed: d.seed! }
+    : undefined;
 }
 
 /**
- * Serialises a study (settings, trials with exclusions, journal) as pretty JSON. A study made from the
- * generated demo records the demo's size and seed so it can be regenerated when reopened.
+ * Parses a study file (`.json`) or a trial list (`.csv`, `.tsv`, `.txt`).
+ * @param fileName - the file's name (decides the format and names the file in errors)
+ * @param text - its content
+ * @throws ParseError / StudyFileError naming the file and the place
  */
-export function studyFileText(settings: StudySettings, trials: TrialSpec[], journal: OnsetJournalLike, demo?: DemoSpec): string {
-  return JSON.stringify({ format: STUDY_FORMAT, version: 1, ...(demo ? { demo } : {}), settings, trials, journal: { edits: journal.edits.slice(0, journal.cursor), cursor: journal.cursor } }, null, 2);
+export function parseStudyText(fileName: string, text: string): ParsedStudy {
+  if (/\.(csv|tsv|txt)$/i.test(fileName)) {
+    return { name: fileName, settings: defaultStudySettings(), trials: importTrialList(text, fileName), journal: { edits: [], cursor: 0 } };
+  }
+  const study = parseStudyFile(text, fileName);
+  let demo: DemoSpec | undefined;
+  try {
+    demo = demoSpecOf((JSON.parse(text) as { demo?: unknown }).demo);
+  } catch {
+    demo = undefined;
+  }
+  return { name: study.name, settings: study.settings, trials: study.trials, journal: study.journal, demo };
+}
+
+/**
+ * The study file text (edits past the journal's cursor, i.e. undone ones, are dropped).
+ * @param name - study name
+ * @param demo - the demo's size and seed when the study is the generated demo
+ */
+export function studyFileText(name: string, settings: StudySettings, trials: TrialSpec[], journal: OnsetJournalLike, demo?: DemoSpec): string {
+  const text = serializeStudy({
+    schemaVersion: STUDY_SCHEMA_VERSION,
+    name,
+    description: demo ? 'Invented demo data from the Forecatch rail-lab simulator' : undefined,
+    savedWith: FORECATCH_VERSION,
+    settings,
+    trials,
+    journal: { edits: journal.edits.slice(0, journal.cursor), cursor: journal.cursor },
+  });
+  if (!demo) return text;
+  return JSON.stringify({ ...(JSON.parse(text) as object), demo }, null, 2) + '\n';
 }
