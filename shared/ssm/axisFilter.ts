@@ -6,6 +6,7 @@
  */
 import { NotPositiveDefiniteError } from '../errors';
 import type { StateSpaceModel } from './stateSpaceModel';
+import { DiscretizationCache } from './discretizationCache';
 import type { FilterResult } from './kalmanFilter';
 
 const LOG_2PI = Math.log(2 * Math.PI);
@@ -24,9 +25,8 @@ function notFinite(k: number, dtS: number): RangeError {
 export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
   const T = timesS.length;
   const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;
-  const Fw = new Float64Array(4);
-  const uw = new Float64Array(2);
-  const Qw = new Float64Array(4);
+  const cache = new DiscretizationCache(model);
+  const cF = cache.F, cu = cache.u, cQ = cache.Q;
   const h0 = model.H[0], h1 = model.H[1], r = model.R[0];
   let f00 = 0, f01 = 0, f10 = 0, f11 = 0, u0 = 0, u1 = 0, q00 = 0, q01 = 0, q10 = 0, q11 = 0;
   // Filtered moments of the previous step (a: mean, c: covariance).
@@ -43,10 +43,10 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
     } else {
       const dt = timesS[k] - timesS[k - 1];
       if (dt !== lastDt) {
-        model.discretize(dt, Fw, uw, Qw);
-        f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
-        u0 = uw[0]; u1 = uw[1];
-        q00 = Qw[0]; q01 = Qw[1]; q10 = Qw[2]; q11 = Qw[3];
+        const sl = cache.slot(dt), fo = sl * 4, vo = sl * 2;
+        f00 = cF[fo]; f01 = cF[fo + 1]; f10 = cF[fo + 2]; f11 = cF[fo + 3];
+        u0 = cu[vo]; u1 = cu[vo + 1];
+        q00 = cQ[fo]; q01 = cQ[fo + 1]; q10 = cQ[fo + 2]; q11 = cQ[fo + 3];
         if (!Number.isFinite(f00 + f01 + f10 + f11 + u0 + u1 + q00 + q01 + q10 + q11)) throw notFinite(k, dt);
         lastDt = dt;
       }
@@ -116,9 +116,8 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
 export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
   const T = timesS.length;
   const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;
-  const Fw = new Float64Array(9);
-  const uw = new Float64Array(3);
-  const Qw = new Float64Array(9);
+  const cache = new DiscretizationCache(model);
+  const cF = cache.F, cu = cache.u, cQ = cache.Q;
   const h0 = model.H[0], h1 = model.H[1], h2 = model.H[2], r = model.R[0];
   let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
   let u0 = 0, u1 = 0, u2 = 0;
@@ -139,10 +138,10 @@ export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Flo
     } else {
       const dt = timesS[k] - timesS[k - 1];
       if (dt !== lastDt) {
-        model.discretize(dt, Fw, uw, Qw);
-        f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
-        u0 = uw[0]; u1 = uw[1]; u2 = uw[2];
-        q00 = Qw[0]; q01 = Qw[1]; q02 = Qw[2]; q10 = Qw[3]; q11 = Qw[4]; q12 = Qw[5]; q20 = Qw[6]; q21 = Qw[7]; q22 = Qw[8];
+        const sl = cache.slot(dt), fo = sl * 9, vo = sl * 3;
+        f00 = cF[fo]; f01 = cF[fo + 1]; f02 = cF[fo + 2]; f10 = cF[fo + 3]; f11 = cF[fo + 4]; f12 = cF[fo + 5]; f20 = cF[fo + 6]; f21 = cF[fo + 7]; f22 = cF[fo + 8];
+        u0 = cu[vo]; u1 = cu[vo + 1]; u2 = cu[vo + 2];
+        q00 = cQ[fo]; q01 = cQ[fo + 1]; q02 = cQ[fo + 2]; q10 = cQ[fo + 3]; q11 = cQ[fo + 4]; q12 = cQ[fo + 5]; q20 = cQ[fo + 6]; q21 = cQ[fo + 7]; q22 = cQ[fo + 8];
         if (!Number.isFinite(f00 + f01 + f02 + f10 + f11 + f12 + f20 + f21 + f22 + u0 + u1 + u2 +
           q00 + q01 + q02 + q10 + q11 + q12 + q20 + q21 + q22)) throw notFinite(k, dt);
         lastDt = dt;

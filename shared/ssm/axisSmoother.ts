@@ -7,6 +7,7 @@
  */
 import { NotPositiveDefiniteError } from '../errors';
 import type { StateSpaceModel } from './stateSpaceModel';
+import { DiscretizationCache } from './discretizationCache';
 import type { FilterResult } from './kalmanFilter';
 import type { SmoothResult } from './rtsSmooth';
 
@@ -18,9 +19,8 @@ function notPd(k: number, t: number): NotPositiveDefiniteError {
 export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
   const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
   const { xSmooth, PSmooth, PLag } = out;
-  const Fw = new Float64Array(4);
-  const uw = new Float64Array(2);
-  const Qw = new Float64Array(4);
+  const cache = new DiscretizationCache(model);
+  const cF = cache.F, cQ = cache.Q;
   let f00 = 0, f01 = 0, f10 = 0, f11 = 0, q00 = 0, q01 = 0, q10 = 0, q11 = 0;
   let lastDt = NaN;
   // Smoothed moments of step k+1 (s: mean, S: covariance).
@@ -32,9 +32,9 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
   for (let k = T - 2; k >= 0; k--) {
     const dt = timesS[k + 1] - timesS[k];
     if (dt !== lastDt) {
-      model.discretize(dt, Fw, uw, Qw);
-      f00 = Fw[0]; f01 = Fw[1]; f10 = Fw[2]; f11 = Fw[3];
-      q00 = Qw[0]; q01 = Qw[1]; q10 = Qw[2]; q11 = Qw[3];
+      const fo = cache.slot(dt) * 4;
+      f00 = cF[fo]; f01 = cF[fo + 1]; f10 = cF[fo + 2]; f11 = cF[fo + 3];
+      q00 = cQ[fo]; q01 = cQ[fo + 1]; q10 = cQ[fo + 2]; q11 = cQ[fo + 3];
       lastDt = dt;
     }
     const xo = 2 * k, po = 4 * k, x1 = xo + 2, p1 = po + 4;
@@ -92,9 +92,8 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
 export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
   const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
   const { xSmooth, PSmooth, PLag } = out;
-  const Fw = new Float64Array(9);
-  const uw = new Float64Array(3);
-  const Qw = new Float64Array(9);
+  const cache = new DiscretizationCache(model);
+  const cF = cache.F, cQ = cache.Q;
   let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
   let q00 = 0, q01 = 0, q02 = 0, q10 = 0, q11 = 0, q12 = 0, q20 = 0, q21 = 0, q22 = 0;
   let lastDt = NaN;
@@ -107,9 +106,9 @@ export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: Smooth
   for (let k = T - 2; k >= 0; k--) {
     const dt = timesS[k + 1] - timesS[k];
     if (dt !== lastDt) {
-      model.discretize(dt, Fw, uw, Qw);
-      f00 = Fw[0]; f01 = Fw[1]; f02 = Fw[2]; f10 = Fw[3]; f11 = Fw[4]; f12 = Fw[5]; f20 = Fw[6]; f21 = Fw[7]; f22 = Fw[8];
-      q00 = Qw[0]; q01 = Qw[1]; q02 = Qw[2]; q10 = Qw[3]; q11 = Qw[4]; q12 = Qw[5]; q20 = Qw[6]; q21 = Qw[7]; q22 = Qw[8];
+      const fo = cache.slot(dt) * 9;
+      f00 = cF[fo]; f01 = cF[fo + 1]; f02 = cF[fo + 2]; f10 = cF[fo + 3]; f11 = cF[fo + 4]; f12 = cF[fo + 5]; f20 = cF[fo + 6]; f21 = cF[fo + 7]; f22 = cF[fo + 8];
+      q00 = cQ[fo]; q01 = cQ[fo + 1]; q02 = cQ[fo + 2]; q10 = cQ[fo + 3]; q11 = cQ[fo + 4]; q12 = cQ[fo + 5]; q20 = cQ[fo + 6]; q21 = cQ[fo + 7]; q22 = cQ[fo + 8];
       lastDt = dt;
     }
     const xo = 3 * k, po = 9 * k, x1 = xo + 3, p1 = po + 9;

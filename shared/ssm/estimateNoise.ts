@@ -10,6 +10,7 @@ import { createAxisWorkspace, filterSmoothAxis, type AxisWorkspace } from './fil
 import { kalmanFilter } from './kalmanFilter';
 import { choleskyLower, choleskySolveInPlace } from './denseLinalg';
 import { golden1d, nelderMead2 } from './minimize';
+import { DiscretizationCache } from './discretizationCache';
 
 /**
  * Builds the model for given noise levels. Its Q must be linear in `qIntensity` (Q = q Qs(dt)), as
@@ -126,7 +127,7 @@ export function fitNoiseEm(build: NoiseModelBuilder, z: Float64Array, timesS: Fl
   const E = new Float64Array(nn), FP = new Float64Array(nn), e = new Float64Array(n);
   const L = new Float64Array(nn), sub = new Float64Array(nn), rhs = new Float64Array(nn);
   const support = new Int32Array(n);
-  const unit = build(1, rInit);
+  const unitCache = new DiscretizationCache(build(1, rInit));
   let q = qInit, r = rInit;
   let prevLl = -Infinity;
   let ll = -Infinity;
@@ -163,7 +164,12 @@ export function fitNoiseEm(build: NoiseModelBuilder, z: Float64Array, timesS: Fl
     for (let k = 1; k < T; k++) {
       const dt = timesS[k] - timesS[k - 1];
       if (dt !== lastDt) {
-        unit.discretize(dt, F, u, Qs);
+        const sl = unitCache.slot(dt);
+        for (let i = 0; i < nn; i++) {
+          F[i] = unitCache.F[sl * nn + i];
+          Qs[i] = unitCache.Q[sl * nn + i];
+        }
+        for (let i = 0; i < n; i++) u[i] = unitCache.u[sl * n + i];
         d = 0;
         for (let i = 0; i < n; i++) if (Qs[i * n + i] > 0) support[d++] = i;
         for (let a = 0; a < d; a++) for (let b = 0; b < d; b++) sub[a * d + b] = Qs[support[a] * n + support[b]];

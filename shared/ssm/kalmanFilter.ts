@@ -6,6 +6,7 @@ import type { ObservationPart, StateSpaceModel } from './stateSpaceModel';
 import { checkFilterInputs } from './filterInputs';
 import { choleskyLower, choleskySolveInPlace, logDetFromCholesky, matMul, matMulTransB, symmetrize } from './denseLinalg';
 import { filterAxis2, filterAxis3 } from './axisFilter';
+import { DiscretizationCache } from './discretizationCache';
 
 /** Output of {@link kalmanFilter}: predicted and filtered moments for every sample, plus fit statistics. */
 export interface FilterResult {
@@ -127,7 +128,7 @@ export type PredictHook = (
 
 /**
  * The general dense filter (any n, m); fills `res` in place. Without `predict`, the step is the
- * linear x = F x + u of `model.discretize` (re-discretised only when the step changes).
+ * linear x = F x + u of `model.discretize` (through a {@link DiscretizationCache}).
  * Internal to `shared/ssm/` (inputs already checked).
  */
 export function filterGeneral(
@@ -156,6 +157,7 @@ export function filterGeneral(
   const v = new Float64Array(m);
   const w = new Float64Array(m);
   const obs = new Int32Array(m);
+  const cache = model.discretize ? new DiscretizationCache({ n, discretize: model.discretize }) : undefined;
   let lastDt = NaN;
   let logLik = 0;
   let nObserved = 0;
@@ -179,7 +181,12 @@ export function filterGeneral(
         }
       } else {
         if (dt !== lastDt) {
-          model.discretize!(dt, F, u, Q);
+          const sl = cache!.slot(dt);
+          for (let i = 0; i < nn; i++) {
+            F[i] = cache!.F[sl * nn + i];
+            Q[i] = cache!.Q[sl * nn + i];
+          }
+          for (let i = 0; i < n; i++) u[i] = cache!.u[sl * n + i];
           if (!allFinite(F) || !allFinite(u) || !allFinite(Q)) {
             throw new RangeError(`kalmanFilter: model.discretize(${dt}) gave a non-finite F, u or Q (step to sample ${k})`);
           }

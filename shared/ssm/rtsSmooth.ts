@@ -7,6 +7,7 @@ import type { FilterResult } from './kalmanFilter';
 import { validateModel } from './stateSpaceModel';
 import { choleskyLower, choleskySolveInPlace, matMul, matMulTransB, symmetrize } from './denseLinalg';
 import { smoothAxis2, smoothAxis3 } from './axisSmoother';
+import { DiscretizationCache } from './discretizationCache';
 
 /** Output of {@link rtsSmooth}: moments of the state given all samples. */
 export interface SmoothResult {
@@ -94,7 +95,7 @@ export type TransitionHook = (k: number, dtS: number, F: Float64Array, Q: Float6
 
 /**
  * The general dense smoother; fills `out` in place. Without `transitionAt`, F comes from
- * `model.discretize` (re-discretised only when the step changes). Internal to `shared/ssm/`.
+ * `model.discretize` (through a {@link DiscretizationCache}). Internal to `shared/ssm/`.
  */
 export function smoothGeneral(
   model: { discretize?: StateSpaceModel['discretize'] }, f: FilterResult, out: SmoothResult, transitionAt?: TransitionHook,
@@ -103,7 +104,6 @@ export function smoothGeneral(
   const { xSmooth, PSmooth, PLag } = out;
   const nn = n * n;
   const F = new Float64Array(nn);
-  const u = new Float64Array(n);
   const Q = new Float64Array(nn);
   const L = new Float64Array(nn);
   const Ct = new Float64Array(nn);
@@ -112,6 +112,7 @@ export function smoothGeneral(
   const W = new Float64Array(nn);
   const CW = new Float64Array(nn);
   const diff = new Float64Array(n);
+  const cache = model.discretize ? new DiscretizationCache({ n, discretize: model.discretize }) : undefined;
   let lastDt = NaN;
   const last = (T - 1) * n;
   xSmooth.set(xFilt.subarray(last, last + n), last);
@@ -121,7 +122,11 @@ export function smoothGeneral(
     if (transitionAt) {
       transitionAt(k, dt, F, Q);
     } else if (dt !== lastDt) {
-      model.discretize!(dt, F, u, Q);
+      const sl = cache!.slot(dt);
+      for (let i = 0; i < nn; i++) {
+        F[i] = cache!.F[sl * nn + i];
+        Q[i] = cache!.Q[sl * nn + i];
+      }
       lastDt = dt;
     }
     const xo = k * n;
