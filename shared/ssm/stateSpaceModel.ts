@@ -21,7 +21,8 @@ export interface StateSpaceModel {
   m: number;
   /**
    * Fills the transition F (n*n), input term u (n) and process-noise covariance Q (n*n) for a step of
-   * `dtS` seconds, in place (no allocation). Called by the filter only when the step changes.
+   * `dtS` seconds, in place (no allocation). Must be a pure function of `dtS`: the filter and smoother
+   * cache its results by exact step.
    */
   discretize(dtS: number, F: Float64Array, u: Float64Array, Q: Float64Array): void;
   /** Observation matrix, m*n. */
