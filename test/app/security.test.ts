@@ -62,7 +62,9 @@ describe('Content-Security-Policy (checklist 7): no remote origin, no eval, no i
       return; // not built yet: the end-to-end tests build and check it in a real browser
     }
     expect(html).toContain('http-equiv="Content-Security-Policy"');
-    expect(html).toContain("script-src 'self'");
+    const content = /http-equiv="Content-Security-Policy" content="([^"]*)"/.exec(html)?.[1].replace(/&#39;/g, "'");
+    expect(content).toBe(CONTENT_SECURITY_POLICY.replace("; frame-ancestors 'none'", ''));
+    expect(html).not.toMatch(/<script(?![^>]*\bsrc=)[^>]*>/); // no inline script element
   });
 });
 
