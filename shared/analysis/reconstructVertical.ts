@@ -40,8 +40,8 @@ function toThreeState(x: Float64Array, P: Float64Array, n: number, T: number, ki
 
 /**
  * Reconstructs the vertical motion of the object: Kalman filter and RTS smoother under the reconstruction
- * hypothesis with noise fitted by maximum likelihood (a coarse log grid, then the engine's fitNoiseMle from
- * the best grid point; or fixed), giving position, velocity, acceleration and
+ * hypothesis with noise fitted by maximum likelihood (a bounded log grid, refined by the engine's fitNoiseMle;
+ * or fixed), giving position, velocity, acceleration and
  * their covariances at every sample.
  *
  * @param heightM - measured heights, m (NaN = missing), length T
@@ -75,18 +75,17 @@ export function reconstructVertical(heightM: Float64Array, timesS: Float64Array,
   if (settings.noise.kind === 'fixed') {
     noise = { qIntensity: settings.noise.qIntensity, measurementVarM2: settings.noise.measurementVarM2, logLik: NaN, fitted: false };
   } else {
-    // a bounded log grid finds the basin, the engine's maximum-likelihood estimator refines it
-    const grid = fitAxisNoiseGrid(spec, heightM, timesS, x0, P0);
-    noise = { qIntensity: grid.qIntensity, measurementVarM2: grid.measurementVarM2, logLik: grid.logLik, fitted: true };
+    // a bounded log grid finds the basin (about 100 filter runs); the engine's maximum-likelihood estimator
+    // (Nelder-Mead on log q, log R) refines it from there, kept when it does not lower the likelihood
+    let fit: { qIntensity: number; measurementVarM2: number; logLik: number } = fitAxisNoiseGrid(spec, heightM, timesS, x0, P0);
     try {
       const build = (q: number, r: number) => makeAxisModel(spec, { axis: 'vertical', qIntensity: q, measurementVarM2: r, x0, P0 });
-      const mle = fitNoiseMle(build, heightM, timesS, { qInit: grid.qIntensity, rInit: grid.measurementVarM2, maxIterations: 300 });
-      if (mle.logLik >= grid.logLik && mle.qIntensity > 0 && mle.measurementVarM2 > 0) {
-        noise = { qIntensity: mle.qIntensity, measurementVarM2: mle.measurementVarM2, logLik: mle.logLik, fitted: true };
-      }
+      const mle = fitNoiseMle(build, heightM, timesS, { qInit: fit.qIntensity, rInit: fit.measurementVarM2, maxIterations: 60, tol: 1e-6 });
+      if (mle.logLik >= fit.logLik && mle.qIntensity > 0 && mle.measurementVarM2 > 0) fit = mle;
     } catch {
       /* keep the grid estimate */
     }
+    noise = { qIntensity: fit.qIntensity, measurementVarM2: fit.measurementVarM2, logLik: fit.logLik, fitted: true };
   }
   const model = makeAxisModel(spec, { axis: 'vertical', qIntensity: noise.qIntensity, measurementVarM2: noise.measurementVarM2, x0, P0 });
   const filt = kalmanFilter(model, heightM, timesS);
