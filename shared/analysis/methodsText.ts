@@ -5,7 +5,12 @@ function num(v: number, digits = 3): string {
   return Number.isFinite(v) ? String(Number(v.toPrecision(digits))) : 'n/a';
 }
 
-/** One hypothesis in words. */
+/**
+ * One hypothesis in words, for the methods text.
+ *
+ * @param h - hypothesis
+ * @returns a clause naming the hypothesis id and its acceleration rule
+ */
 export function describeHypothesis(h: AnalysisHypothesis): string {
   switch (h.kind) {
     case 'constant-velocity':
