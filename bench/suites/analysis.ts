@@ -8,7 +8,7 @@
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { BenchSuite } from '../run';
@@ -59,29 +59,34 @@ export const suite: BenchSuite = {
 
       const fewer: StudySettings = { ...settings, hypotheses: settings.hypotheses.slice(0, 3) };
       const delayed: StudySettings = { ...settings, cutoff: { kind: 'onset-minus-delay', delayMs: 80 } };
-      const time = (s: StudySettings, skip: boolean): number => {
-        const xs: number[] = [];
+      // wall time and this process's CPU time (user + system), medians: on a shared machine CPU time is steadier
+      const time = (s: StudySettings, skip: boolean): [number, number] => {
+        const wall: number[] = [];
+        const cpu: number[] = [];
         for (let i = 0; i < REPEATS; i++) {
+          const c = process.cpuUsage();
           const t = performance.now();
           evaluateStudy(prepared, s, journal, { skipDelaySweep: skip });
-          xs.push(performance.now() - t);
+          wall.push(performance.now() - t);
+          const d = process.cpuUsage(c);
+          cpu.push((d.user + d.system) / 1000);
         }
-        return median(xs);
+        return [median(wall), median(cpu)];
       };
-      const rows: [string, number][] = [
-        ['forecatch analyze, whole process (spawned)', processMs],
-        ['in process: read + prepare 200 trials', prepareMs],
-        ['in process: first evaluation', firstEvalMs],
-        ['in process: write outputs', writeMs],
-        ['re-evaluate, hypothesis set 6 -> 3 (all outputs)', time(fewer, false)],
-        ['re-evaluate, delay 100 -> 80 ms (all outputs)', time(delayed, false)],
-        ['re-evaluate, hypothesis set 6 -> 3 (delay sweep skipped)', time(fewer, true)],
-        ['re-evaluate, delay 100 -> 80 ms (delay sweep skipped)', time(delayed, true)],
+      const rows: [string, number, number][] = [
+        ['forecatch analyze, whole process (spawned)', processMs, NaN],
+        ['in process: read + prepare 200 trials', prepareMs, NaN],
+        ['in process: first evaluation', firstEvalMs, NaN],
+        ['in process: write outputs', writeMs, NaN],
+        ['re-evaluate, hypothesis set 6 -> 3 (all outputs)', ...time(fewer, false)],
+        ['re-evaluate, delay 100 -> 80 ms (all outputs)', ...time(delayed, false)],
+        ['re-evaluate, hypothesis set 6 -> 3 (delay sweep skipped)', ...time(fewer, true)],
+        ['re-evaluate, delay 100 -> 80 ms (delay sweep skipped)', ...time(delayed, true)],
       ];
-      console.log(`200 trials (${prepared.length} prepared), ${settings.hypotheses.length} hypotheses, bootstrap ${settings.bootstrap.replicates}, delay sweep ${settings.delaySweepMs.length} delays; medians of ${REPEATS} for re-evaluations`);
-      console.log('| step | ms | ratio to in-process whole run |');
-      console.log('|---|---:|---:|');
-      for (const [name, ms] of rows) console.log(`| ${name} | ${ms.toFixed(1)} | ${(ms / wholeMs).toFixed(4)} |`);
+      console.log(`200 trials (${prepared.length} prepared), ${settings.hypotheses.length} hypotheses, bootstrap ${settings.bootstrap.replicates}, delay sweep ${settings.delaySweepMs.length} delays; medians of ${REPEATS} for re-evaluations; load average ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+      console.log('| step | wall ms | CPU ms | wall ratio to in-process whole run |');
+      console.log('|---|---:|---:|---:|');
+      for (const [name, ms, cpuMs] of rows) console.log(`| ${name} | ${ms.toFixed(1)} | ${Number.isNaN(cpuMs) ? '' : cpuMs.toFixed(1)} | ${(ms / wholeMs).toFixed(4)} |`);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
