@@ -56,4 +56,22 @@ describe('delay sensitivity and the Bayesian observer on an Earth-gravity catche
   it('marks every journal-set onset as edited and keeps the automatic one beside it', () => {
     expect(ev.trials.every((t) => t.onsetEdited)).toBe(true);
   });
+  it('a very wide prior turns the Bayesian observer into the seen-acceleration hypothesis (filtered state), a very narrow one into gravity', () => {
+    const wide = evaluateStudy(prepared, { ...settings, stateSource: 'filtered', priorWidthGrid: { points: 3, minMps2: 1e6, maxMps2: 1e7 } }, journal, { skipDelaySweep: true });
+    const narrow = evaluateStudy(prepared, { ...settings, priorWidthGrid: { points: 3, minMps2: 1e-7, maxMps2: 1e-6 } }, journal, { skipDelaySweep: true });
+    let compared = 0;
+    for (const t of wide.trials) {
+      const seen = t.hypotheses.find((h) => h.hypothesis === 'seen-acceleration')!;
+      const b = t.hypotheses.find((h) => h.hypothesis === 'bayesian-observer')!;
+      if (!Number.isFinite(seen.ttcMs)) continue;
+      expect(b.ttcMs).toBeCloseTo(seen.ttcMs, 3);
+      compared++;
+    }
+    expect(compared).toBeGreaterThan(10);
+    for (const t of narrow.trials.filter((x) => x.usable)) {
+      const g = t.hypotheses.find((h) => h.hypothesis === 'gravity')!;
+      const b = t.hypotheses.find((h) => h.hypothesis === 'bayesian-observer')!;
+      expect(b.ttcMs).toBeCloseTo(g.ttcMs, 3);
+    }
+  });
 });
