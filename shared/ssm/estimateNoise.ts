@@ -106,7 +106,9 @@ function medianStep(timesS: Float64Array): number {
  *   q = sum_k tr(Qs_k^+ E_k) / sum_k rank(Qs_k), with
  *   E_k = E[w_k w_k' | all] = e e' + P_k|T - P_k,k-1|T F' - F P_k,k-1|T' + F P_k-1|T F', e = x_k|T - F x_k-1|T - u,
  * where Qs^+ inverts Qs on the states that receive noise (states with zero noise, such as a fitted
- * gravity, are left out). Iterates until the relative change of the log-likelihood is below `tol`.
+ * gravity, are left out). The q update maximises the expected complete-data log-likelihood
+ * sum_k [-(r_k/2) log q - tr(Qs_k^+ E_k) / (2 q)], r_k = rank(Qs_k); with full-rank Qs it is the mean
+ * over steps of tr(Qs_k^-1 E_k) / n. Iterates until the relative change of the log-likelihood is below `tol`.
  *
  * @param build - model for given (q, R); Q linear in q, m = 1
  * @param z - observations, T, NaN for missing
