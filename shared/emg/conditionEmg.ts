@@ -68,19 +68,32 @@ function applyFilter(sos: Sos, y: Float64Array, zeroPhase: boolean): void {
  * @param signal - raw samples (any units)
  * @param rateHz - sample rate, Hz
  * @param settings - conditioning settings (see DEFAULT_EMG_CONDITIONING)
+ * @param out - optional output buffers of the signal's length, reused across calls in batch work
  * @returns conditioned signal, envelope and the count of non-finite input samples
  * @throws RangeError for an empty signal, a signal without a finite sample, a signal shorter than the
- *   filters' padding, or a sample rate too low for the band (message names the numbers)
+ *   filters' padding, a sample rate too low for the band (message names the numbers), or out buffers of another length
  * @see Hermens H.J. et al. (2000) J Electromyogr Kinesiol 10:361-374 (SENIAM); Winter D.A. (2009) p. 69
  */
-export function conditionEmg(signal: Float64Array | Float32Array, rateHz: number, settings: EmgConditioningSettings): ConditionedEmg {
+export function conditionEmg(
+  signal: Float64Array | Float32Array,
+  rateHz: number,
+  settings: EmgConditioningSettings,
+  out?: { conditioned: Float64Array; envelope: Float64Array },
+): ConditionedEmg {
   const filters = designConditioningFilters(rateHz, settings);
   const n = signal.length;
   if (n === 0) throw new RangeError('conditionEmg: the signal is empty');
   if (n < filters.minSamples) {
     throw new RangeError(`conditionEmg: the signal has ${n} samples; the zero-phase filters need at least ${filters.minSamples}`);
   }
-  const conditioned = new Float64Array(signal);
+  if (out && (out.conditioned.length !== n || out.envelope.length !== n || out.conditioned === out.envelope)) {
+    throw new RangeError(`conditionEmg: out buffers must be two distinct arrays of ${n} samples`);
+  }
+  let conditioned: Float64Array;
+  if (out) {
+    conditioned = out.conditioned;
+    conditioned.set(signal);
+  } else conditioned = new Float64Array(signal);
   // One pass: the sum (for the offset) is finite only when every sample is.
   let sum = 0;
   for (let i = 0; i < n; i++) sum += conditioned[i];
@@ -100,11 +113,11 @@ export function conditionEmg(signal: Float64Array | Float32Array, rateHz: number
   if (filters.notch) applyFilter(filters.notch, conditioned, settings.zeroPhase);
   let envelope: Float64Array;
   if (filters.envelope) {
-    envelope = new Float64Array(n);
+    envelope = out ? out.envelope : new Float64Array(n);
     for (let i = 0; i < n; i++) envelope[i] = Math.abs(conditioned[i]);
     applyFilter(filters.envelope, envelope, settings.zeroPhase);
   } else {
-    envelope = movingRms(conditioned, 2 * Math.max(1, Math.round((settings.envelope.rmsWindowS * rateHz) / 2)) + 1);
+    envelope = movingRms(conditioned, 2 * Math.max(1, Math.round((settings.envelope.rmsWindowS * rateHz) / 2)) + 1, out?.envelope);
   }
   if (nanCount > 0) {
     for (let i = 0; i < n; i++) {

@@ -23,30 +23,34 @@ export function checkSpanQuality(raw: Float64Array | Float32Array, from: number,
   let nanCount = 0;
   let lo = Infinity;
   let hi = -Infinity;
-  // Extreme values among runs of >= 3 equal samples, compared with the span's extremes at the end (one pass).
+  // Extreme values among runs of >= 3 equal samples, compared with the span's extremes at the end (one pass;
+  // a repeated value cannot change the extremes, so only a new value is compared with them).
   let runLo = Infinity;
   let runHi = -Infinity;
   let run = 0;
   let prev = NaN;
-  const level = saturationLevel ?? Infinity;
-  let saturated = false;
   for (let i = from; i < to; i++) {
     const v = raw[i];
-    if (!(v - v === 0)) {
+    if (v === prev) {
+      run++;
+      if (run >= 3) {
+        if (v > runHi) runHi = v;
+        if (v < runLo) runLo = v;
+      }
+    } else if (v - v === 0) {
+      run = 1;
+      prev = v;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    } else {
       nanCount++;
       run = 0;
       prev = NaN;
-      continue;
     }
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
-    if (v >= level || -v >= level) saturated = true;
-    run = v === prev ? run + 1 : 1;
-    prev = v;
-    if (run >= 3) {
-      if (v < runLo) runLo = v;
-      if (v > runHi) runHi = v;
-    }
+  }
+  let saturated = false;
+  if (saturationLevel !== null) {
+    for (let i = from; i < to && !saturated; i++) saturated = Math.abs(raw[i]) >= saturationLevel;
   }
   const constant = !(hi > lo);
   const clipped = saturated || (!constant && (runHi === hi || runLo === lo));

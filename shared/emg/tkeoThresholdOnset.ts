@@ -25,10 +25,15 @@ export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothin
   // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass; the sum tells whether any sample was not finite.
   let psi: Float64Array = new Float64Array(n);
   let sum = 0;
+  let a = conditioned[0];
+  let b = conditioned[1];
   for (let i = 1; i < n - 1; i++) {
-    const v = Math.abs(conditioned[i] * conditioned[i] - conditioned[i + 1] * conditioned[i - 1]);
+    const c = conditioned[i + 1];
+    const v = Math.abs(b * b - c * a);
     psi[i] = v;
     sum += v;
+    a = b;
+    b = c;
   }
   psi[0] = psi[1];
   psi[n - 1] = psi[n - 2];

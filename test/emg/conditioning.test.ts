@@ -159,3 +159,16 @@ describe('describeConditioning', () => {
     expect(Object.isFrozen(DEFAULT_EMG_CONDITIONING.bandPass)).toBe(true);
   });
 });
+
+describe('conditionEmg with reused output buffers', () => {
+  it('writes the same values into the given buffers and refuses buffers of another length', () => {
+    const x = Float64Array.from({ length: 3000 }, (_, i) => Math.sin(i * 0.3) + (i > 1500 ? Math.sin(i * 0.9) : 0));
+    const ref = conditionEmg(x, 2000, DEFAULT_EMG_CONDITIONING);
+    const out = { conditioned: new Float64Array(3000), envelope: new Float64Array(3000) };
+    const got = conditionEmg(x, 2000, DEFAULT_EMG_CONDITIONING, out);
+    expect(got.conditioned).toBe(out.conditioned);
+    expect(got.envelope).toBe(out.envelope);
+    expect(Array.from(got.envelope)).toEqual(Array.from(ref.envelope));
+    expect(() => conditionEmg(x, 2000, DEFAULT_EMG_CONDITIONING, { conditioned: new Float64Array(10), envelope: new Float64Array(3000) })).toThrow(/3000 samples/);
+  });
+});
