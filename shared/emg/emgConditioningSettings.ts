@@ -105,12 +105,12 @@ function hz(v: number): string {
  * @returns methods text
  */
 export function describeConditioning(s: EmgConditioningSettings, rateHz?: number): string {
-  const phase = s.zeroPhase ? 'zero-phase (forward and backward)' : 'causal (single pass)';
+  const phase = s.zeroPhase ? 'zero-phase, run forward and backward' : 'causal, single pass';
   const corrected = s.zeroPhase && s.correctCutoffForPasses;
   const parts: string[] = [];
-  if (s.removeOffset) parts.push('the mean was subtracted');
+  if (s.removeOffset) parts.push('offset-corrected (mean subtracted)');
   if (s.bandPass.enabled) {
-    let t = `band-pass filtered at ${hz(s.bandPass.lowHz)}-${hz(s.bandPass.highHz)} (Butterworth, order ${s.bandPass.order} per edge, ${2 * s.bandPass.order} poles, ${phase}`;
+    let t = `band-pass filtered at ${hz(s.bandPass.lowHz)}-${hz(s.bandPass.highHz)} (Butterworth, prototype order ${s.bandPass.order}, ${2 * s.bandPass.order} poles, ${phase}`;
     if (corrected) {
       t += ', edges corrected for two passes so that the combined response is -3 dB at the stated cut-offs (Winter 2009, p. 69)';
       if (rateHz && rateHz > 2 * s.bandPass.highHz) {
@@ -130,5 +130,5 @@ export function describeConditioning(s: EmgConditioningSettings, rateHz?: number
     parts.push(`reduced to a moving RMS amplitude over ${Number((s.envelope.rmsWindowS * 1000).toPrecision(4))} ms centred windows as the envelope`);
   }
   const last = parts.pop();
-  return `EMG signals were processed as follows: ${parts.join(', ')}${parts.length ? ' and ' : ''}${last}.`;
+  return `EMG signals were ${parts.join(', ')}${parts.length ? ' and ' : ''}${last}.`;
 }

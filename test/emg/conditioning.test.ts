@@ -148,7 +148,7 @@ describe('describeConditioning', () => {
   it('states filter type, order, cut-offs, phase and correction (ISEK reporting standard, Merletti 1999)', () => {
     const t = describeConditioning(DEFAULT_EMG_CONDITIONING, 2000);
     expect(t).toMatch(/20 Hz-450 Hz/);
-    expect(t).toMatch(/Butterworth, order 4/);
+    expect(t).toMatch(/Butterworth, prototype order 4, 8 poles/);
     expect(t).toMatch(/zero-phase/);
     expect(t).toMatch(/Winter 2009/);
     expect(t).toMatch(/low-pass filtered at 10 Hz/);
