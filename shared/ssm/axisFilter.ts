@@ -21,7 +21,14 @@ function notFinite(k: number, dtS: number): RangeError {
   return new RangeError(`kalmanFilter: model.discretize(${dtS}) gave a non-finite F, u or Q (step to sample ${k})`);
 }
 
-/** Filter for n = 2, m = 1; fills `res` (already allocated and checked). */
+/**
+ * Filter for n = 2, m = 1; fills `res` (already allocated; inputs already checked).
+ * @param model - a model with n = 2, m = 1
+ * @param z - observations, T, NaN for missing
+ * @param timesS - sample times, s, strictly increasing
+ * @param res - output storage for T samples
+ * @throws NotPositiveDefiniteError when S <= 0; RangeError when discretize yields non-finite values
+ */
 export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
   const T = timesS.length;
   const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;
@@ -112,7 +119,14 @@ export function filterAxis2(model: StateSpaceModel, z: Float64Array, timesS: Flo
   res.nObserved = nObs;
 }
 
-/** Filter for n = 3, m = 1; fills `res` (already allocated and checked). */
+/**
+ * Filter for n = 3, m = 1; fills `res` (already allocated; inputs already checked).
+ * @param model - a model with n = 3, m = 1
+ * @param z - observations, T, NaN for missing
+ * @param timesS - sample times, s, strictly increasing
+ * @param res - output storage for T samples
+ * @throws NotPositiveDefiniteError when S <= 0; RangeError when discretize yields non-finite values
+ */
 export function filterAxis3(model: StateSpaceModel, z: Float64Array, timesS: Float64Array, res: FilterResult): void {
   const T = timesS.length;
   const { xPred, PPred, xFilt, PFilt, nis, nisDof } = res;

@@ -15,7 +15,13 @@ function notPd(k: number, t: number): NotPositiveDefiniteError {
   return new NotPositiveDefiniteError(`rtsSmooth: predicted covariance is not positive definite at sample ${k} (t = ${t} s)`);
 }
 
-/** Smoother for n = 2; fills `out` (allocated by the caller). */
+/**
+ * Smoother for n = 2; fills `out` (allocated by the caller).
+ * @param model - the model the filter ran with (n = 2)
+ * @param f - the filter result
+ * @param out - output storage for the same T
+ * @throws NotPositiveDefiniteError when a predicted covariance is not positive definite
+ */
 export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
   const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
   const { xSmooth, PSmooth, PLag } = out;
@@ -88,7 +94,13 @@ export function smoothAxis2(model: StateSpaceModel, f: FilterResult, out: Smooth
   }
 }
 
-/** Smoother for n = 3; fills `out` (allocated by the caller). */
+/**
+ * Smoother for n = 3; fills `out` (allocated by the caller).
+ * @param model - the model the filter ran with (n = 3)
+ * @param f - the filter result
+ * @param out - output storage for the same T
+ * @throws NotPositiveDefiniteError when a predicted covariance is not positive definite
+ */
 export function smoothAxis3(model: StateSpaceModel, f: FilterResult, out: SmoothResult): void {
   const { length: T, timesS, xPred, PPred, xFilt, PFilt } = f;
   const { xSmooth, PSmooth, PLag } = out;

@@ -27,6 +27,7 @@ export class DiscretizationCache {
   private readonly uw: Float64Array;
   private readonly Qw: Float64Array;
 
+  /** @param model - the model whose `discretize` is cached (a pure function of the step) */
   constructor(private readonly model: Pick<StateSpaceModel, 'n' | 'discretize'>) {
     const n = model.n;
     this.F = new Float64Array(SLOTS * n * n);
@@ -39,6 +40,7 @@ export class DiscretizationCache {
 
   /**
    * Slot holding the discretisation for `dtS`, calling the model's `discretize` on a miss.
+   * @param dtS - the step, s
    * @returns the slot index s (F at s*n*n, u at s*n, Q at s*n*n)
    */
   slot(dtS: number): number {

@@ -130,6 +130,12 @@ export type PredictHook = (
  * The general dense filter (any n, m); fills `res` in place. Without `predict`, the step is the
  * linear x = F x + u of `model.discretize` (through a {@link DiscretizationCache}).
  * Internal to `shared/ssm/` (inputs already checked).
+ * @param model - sizes, observation, prior, and `discretize` unless `predict` is given
+ * @param z - observations, T*m, NaN for missing
+ * @param timesS - sample times, s
+ * @param res - output storage
+ * @param predict - optional nonlinear prediction (extended filter)
+ * @throws NotPositiveDefiniteError / RangeError as {@link kalmanFilter}
  */
 export function filterGeneral(
   model: ObservationPart & { discretize?: StateSpaceModel['discretize'] }, z: Float64Array, timesS: Float64Array, res: FilterResult,

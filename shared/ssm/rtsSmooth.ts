@@ -96,6 +96,11 @@ export type TransitionHook = (k: number, dtS: number, F: Float64Array, Q: Float6
 /**
  * The general dense smoother; fills `out` in place. Without `transitionAt`, F comes from
  * `model.discretize` (through a {@link DiscretizationCache}). Internal to `shared/ssm/`.
+ * @param model - provides `discretize` unless `transitionAt` is given
+ * @param f - the filter result
+ * @param out - output storage
+ * @param transitionAt - optional per-step F and Q (extended smoother)
+ * @throws NotPositiveDefiniteError when a predicted covariance is not positive definite
  */
 export function smoothGeneral(
   model: { discretize?: StateSpaceModel['discretize'] }, f: FilterResult, out: SmoothResult, transitionAt?: TransitionHook,
