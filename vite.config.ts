@@ -37,6 +37,7 @@ export default defineConfig({
     chunkSizeWarningLimit: 6000,
     sourcemap: false,
     modulePreload: { polyfill: false },
+    rolldownOptions: { checks: { pluginTimings: false } },
   },
   worker: { format: 'es' },
   server: { host: '127.0.0.1' },

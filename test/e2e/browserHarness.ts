@@ -41,6 +41,8 @@ export async function openBrowserBuild(opts: { width?: number; height?: number; 
     args: ['--no-sandbox', '--disable-background-networking', '--disable-gpu', '--disable-component-update', '--disable-sync', '--no-first-run'],
   });
   const context = await browser.newContext({ viewport: { width: opts.width ?? 1500, height: opts.height ?? 950 }, acceptDownloads: true });
+  // tsx/esbuild (keepNames) wraps functions passed to page.evaluate in a __name() helper the page lacks
+  await context.addInitScript('globalThis.__name = (f) => f;');
   const page = await context.newPage();
   const log: string[] = [];
   page.on('console', (m) => log.push(`${m.type()}: ${m.text()}`));

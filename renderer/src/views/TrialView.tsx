@@ -191,7 +191,20 @@ export function TrialView(props: TrialViewProps) {
         </button>
       </div>
       {figure ? (
-        <Plot plotId={`trial-${props.trialId}`} label={`Trial ${props.trialId}: height, velocity and EMG against time`} data={figure.data} layout={figure.layout} theme={props.theme} config={config} onRelayout={onRelayout} className="plot plot-trial" />
+        <Plot
+          plotId={`trial-${props.trialId}`}
+          label={`Trial ${props.trialId}: height, velocity and EMG against time`}
+          data={figure.data}
+          layout={figure.layout}
+          theme={props.theme}
+          config={config}
+          onRelayout={onRelayout}
+          onDrawn={() => {
+            // a stamp per drawn figure, read by the browser benchmark
+            document.body.dataset.trialPainted = `${props.trialId}:${performance.now().toFixed(1)}`;
+          }}
+          className="plot plot-trial"
+        />
       ) : (
         <div className="placeholder">Loading trial…</div>
       )}
