@@ -31,7 +31,9 @@ function detector(ctx: OnsetContext): DetectorOutput {
  * Detects the onset (and offset where the method defines one) of muscle activity in one EMG channel.
  * The baseline is `searchWindow.baselineFromS..baselineToS` when given, otherwise the first
  * `settings.baselineDurationS` of the search window, and the onset is searched after it. Only the span
- * around the windows (plus `conditioningMarginS` each side) is conditioned.
+ * around the windows (plus `conditioningMarginS` each side) is conditioned. Samples are taken as evenly spaced
+ * (sample i at startS + i / rateHz); a channel with explicit `timesS` (discontinuous EDF+) must be split into
+ * its continuous records first.
  * @param signal - raw samples of the channel
  * @param rateHz - sample rate, Hz
  * @param startS - recording-clock time of sample 0, s
