@@ -145,7 +145,9 @@ export function buildTrialFigure(
   }
 
   // EMG rows, decimated per pixel for the visible window
+  // onset lines first (shape i = muscle i's onset when every muscle has one), then the rest
   const shapes: Record<string, unknown>[] = [];
+  const laterShapes: Record<string, unknown>[] = [];
   const onsetShapes: OnsetShapeMap = {};
   detail.emg.forEach((e, m) => {
     const yaxis = axisName(2 + m);
@@ -156,13 +158,14 @@ export function buildTrialFigure(
     const r = evaluation?.trials.find((t) => t.trialId === p.trial.id && t.muscle === e.muscle);
     const [y0, y1] = domains[2 + m];
     if (r?.onsetEdited && r.automaticOnsetS !== null) {
-      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: r.automaticOnsetS, x1: r.automaticOnsetS, y0, y1, line: { color: c.muted, width: 1.5, dash: 'dash' }, editable: false, name: `auto-${e.muscle}` });
+      laterShapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: r.automaticOnsetS, x1: r.automaticOnsetS, y0, y1, line: { color: c.muted, width: 1.5, dash: 'dash' }, editable: false, name: `auto-${e.muscle}` });
     }
     if (r && r.onsetS !== null) {
       onsetShapes[shapes.length] = e.muscle;
       shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: r.onsetS, x1: r.onsetS, y0, y1, line: { color: c.onset, width: e.muscle === activeMuscle ? 3 : 2 }, editable: true, name: `onset-${e.muscle}` });
     }
   });
+  shapes.push(...laterShapes);
   if (p.releaseS !== null) shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: p.releaseS, x1: p.releaseS, y0: 0, y1: 1, line: { color: c.muted, width: 1, dash: 'dot' }, editable: false, name: 'release' });
   if (p.contactS !== null) shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: p.contactS, x1: p.contactS, y0: 0, y1: 1, line: { color: c.contact, width: 1.5 }, editable: false, name: 'contact' });
 
