@@ -15,15 +15,19 @@ import { tkeo } from './tkeo';
  * @param conditioned - band-passed samples (NaN allowed)
  * @param rateHz - sample rate, Hz
  * @param smoothingHz - low-pass cutoff, Hz
+ * @param out - optional output buffer of the input's length (must not be the input)
  * @returns the statistic
  * @throws RangeError when smoothingHz is not below the Nyquist frequency
  */
-export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothingHz: number): Float64Array {
+export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothingHz: number, out?: Float64Array): Float64Array {
   const n = conditioned.length;
   if (n < 3) throw new RangeError(`smoothedTkeo: needs at least 3 samples, got ${n}`);
+  if (out && (out.length !== n || out.buffer === conditioned.buffer)) {
+    throw new RangeError(`smoothedTkeo: out must be a separate buffer of ${n} samples`);
+  }
   const lp = butterworthSos(2, smoothingHz, rateHz, 'lowpass', { correctForPasses: 2 });
   // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass; the sum tells whether any sample was not finite.
-  let psi: Float64Array = new Float64Array(n);
+  let psi: Float64Array = out ?? new Float64Array(n);
   let sum = 0;
   let a = conditioned[0];
   let b = conditioned[1];
@@ -50,6 +54,8 @@ export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothin
   return psi;
 }
 
+let scratch = new Float64Array(0);
+
 /**
  * TKEO-threshold onset: the band-passed signal is conditioned by the Teager-Kaiser energy operator, rectified
  * and low-pass filtered; onset where it exceeds the baseline mean + k SD for `minDurationS` (walked back to
@@ -61,6 +67,9 @@ export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothin
  */
 export function tkeoThresholdOnset(ctx: OnsetContext): DetectorOutput {
   const s = ctx.settings.tkeoThreshold;
-  const stat = smoothedTkeo(ctx.conditioned, ctx.rateHz, s.smoothingHz);
+  const n = ctx.conditioned.length;
+  // The statistic lives only during this call: one scratch buffer, grown as needed, serves every call.
+  if (scratch.length < n) scratch = new Float64Array(n);
+  const stat = smoothedTkeo(ctx.conditioned, ctx.rateHz, s.smoothingHz, scratch.subarray(0, n));
   return thresholdOnStatistic(ctx, stat, s.k, s.minDurationS, 'smoothed |TKEO|');
 }
