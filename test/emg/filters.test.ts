@@ -209,3 +209,16 @@ describe('the filter kernel equals the textbook direct form II transposed recurs
     });
   }
 });
+
+describe('sosFiltFilt agrees with scipy.signal.sosfiltfilt on a long signal (the kernel paths for long inputs)', () => {
+  const long = (fixture as unknown as { long: { n: number; every: number; cases: (ButterCase & { sosfiltfiltEvery: number[]; last: number })[] } }).long;
+  const x = Float64Array.from({ length: long.n }, (_, i) => Math.sin(0.37 * i) + 0.5 * Math.sin(0.011 * i) + ((i * 7919) % 101) / 101 + 2);
+  for (const c of long.cases) {
+    it(`order ${c.order} ${c.type} ${JSON.stringify(c.cutoffHz)} Hz at ${c.rateHz} Hz, ${long.n} samples`, () => {
+      const y = sosFiltFilt(butterworthSos(c.order, c.cutoffHz, c.rateHz, c.type), x);
+      const every = c.sosfiltfiltEvery.map((_, k) => y[k * long.every]);
+      expect(maxAbsDiff(every, c.sosfiltfiltEvery)).toBeLessThan(1e-9);
+      expect(Math.abs(y[long.n - 1] - c.last)).toBeLessThan(1e-9);
+    });
+  }
+});
