@@ -99,6 +99,12 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     expect((await headers()).some((h) => h.includes(earth))).toBe(true);
     await s.page.waitForTimeout(800);
     await s.page.screenshot({ path: `${SCREENSHOT_DIR}/3-hypothesis-comparison.png`, fullPage: true });
+    for (const id of ['internal-gravity', 'internal-gravity-profile', 'delay-sensitivity']) {
+      const plot = s.page.locator(`[data-plot-id="${id}"]`);
+      await plot.scrollIntoViewIfNeeded();
+      await expect.poll(() => plot.locator('.main-svg').count()).toBeGreaterThan(0);
+      await plot.screenshot({ path: `${SCREENSHOT_DIR}/3-${id}.png` });
+    }
     await s.page.uncheck('input[data-hypothesis="gravity"]');
     await expect.poll(async () => (await headers()).some((h) => h.includes(earth))).toBe(false);
     const after = await posteriors();

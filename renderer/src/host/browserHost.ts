@@ -3,7 +3,8 @@
  * downloads, autosave and the recent list live in localStorage, and the menu's shortcuts are keyboard
  * handlers on the page.
  */
-import type { Host, MenuCommand, OpenedStudy, OutputFile, RecentStudy, RecoveredWork, UserFile } from './host';
+import type { Host, OpenedStudy, OutputFile, RecentStudy, RecoveredWork, UserFile } from './host';
+import { shortcutCommand } from './shortcuts';
 
 const AUTOSAVE_KEY = 'forecatch.autosave';
 const RECENT_KEY = 'forecatch.recent';
@@ -86,28 +87,6 @@ function typeOf(name: string): string {
   if (name.endsWith('.svg')) return 'image/svg+xml';
   if (name.endsWith('.png')) return 'image/png';
   return 'application/octet-stream';
-}
-
-/** Keyboard shortcuts of the browser build (the desktop shell's menu accelerators, same keys). */
-export function shortcutCommand(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>): MenuCommand | null {
-  const mod = e.ctrlKey || e.metaKey;
-  const key = e.key.toLowerCase();
-  if (mod && !e.altKey) {
-    if (key === 'o') return e.shiftKey ? 'open-trial-list' : 'open-study';
-    if (key === 's') return e.shiftKey ? 'save-as' : 'save';
-    if (key === 'e') return e.shiftKey ? 'export-figures' : 'export-tables';
-    if (key === 'z') return e.shiftKey ? 'redo' : 'undo';
-    if (key === 'y') return 'redo';
-    if (key === '1') return 'view-overview';
-    if (key === '2') return 'view-trial';
-    if (key === '3') return 'view-comparison';
-    if (key === 'l' && e.shiftKey) return 'toggle-theme';
-  }
-  if (e.altKey && !mod) {
-    if (e.key === 'ArrowDown') return 'next-trial';
-    if (e.key === 'ArrowUp') return 'previous-trial';
-  }
-  return null;
 }
 
 /** Creates the browser host. */

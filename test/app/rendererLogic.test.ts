@@ -1,0 +1,85 @@
+/** Pure pieces of the renderer: keyboard shortcuts, demo selection from the URL, the study table's rows. */
+import { describe, expect, it } from 'vitest';
+import { shortcutCommand } from '../../renderer/src/host/shortcuts';
+import { DEFAULT_DEMO, demoFromHash } from '../../renderer/src/worker/demoStudy';
+import { buildTrialRows } from '../../renderer/src/views/trialRows';
+import { appendEdit, makeEdit, redoEdit, undoEdit } from '../../renderer/src/state/journalOps';
+import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
+import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
+
+const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
+
+describe('browser keyboard shortcuts mirror the desktop menu accelerators (electron/menuTemplate.ts)', () => {
+  it('maps the usual keys', () => {
+    expect(shortcutCommand(key('o', { ctrlKey: true }))).toBe('open-study');
+    expect(shortcutCommand(key('S', { ctrlKey: true, shiftKey: true }))).toBe('save-as');
+    expect(shortcutCommand(key('s', { metaKey: true }))).toBe('save');
+    expect(shortcutCommand(key('z', { ctrlKey: true }))).toBe('undo');
+    expect(shortcutCommand(key('y', { ctrlKey: true }))).toBe('redo');
+    expect(shortcutCommand(key('Z', { ctrlKey: true, shiftKey: true }))).toBe('redo');
+    expect(shortcutCommand(key('e', { ctrlKey: true }))).toBe('export-tables');
+    expect(shortcutCommand(key('ArrowDown', { altKey: true }))).toBe('next-trial');
+    expect(shortcutCommand(key('ArrowUp', { altKey: true }))).toBe('previous-trial');
+  });
+  it('leaves plain keys to the views', () => {
+    expect(shortcutCommand(key('z'))).toBeNull();
+    expect(shortcutCommand(key('ArrowDown'))).toBeNull();
+  });
+});
+
+describe('demo selection from the page address', () => {
+  it('#demo is the bundled demo; parameters make a generated one; anything else none', () => {
+    expect(demoFromHash('#demo')).toEqual(DEFAULT_DEMO);
+    expect(demoFromHash('#demo?subjects=4&trials=50')).toMatchObject({ subjects: 4, trialsPerSubject: 50, muscles: 2 });
+    expect(demoFromHash('#demo?muscles=16&post=59')).toMatchObject({ muscles: 16, postS: 59 });
+    expect(demoFromHash('#demo?trials=-3&muscles=9999')).toMatchObject({ trialsPerSubject: DEFAULT_DEMO.trialsPerSubject, muscles: DEFAULT_DEMO.muscles });
+    expect(demoFromHash('')).toBeNull();
+    expect(demoFromHash('#other')).toBeNull();
+  });
+});
+
+describe('undoable onset journal', () => {
+  it('a new edit after an undo drops the undone edit; undo/redo only move the cursor', () => {
+    let j = { edits: [], cursor: 0 } as Parameters<typeof appendEdit>[0];
+    j = appendEdit(j, makeEdit('t1', 'FCR', 'move', 1.0, 1.01));
+    j = appendEdit(j, makeEdit('t1', 'FCR', 'move', 1.01, 1.02));
+    j = undoEdit(j);
+    expect(j.cursor).toBe(1);
+    expect(redoEdit(j).cursor).toBe(2);
+    j = appendEdit(j, makeEdit('t1', 'FCR', 'invalidate', 1.01, null));
+    expect(j.edits.map((e) => e.action)).toEqual(['move', 'invalidate']);
+    expect(redoEdit(j)).toBe(j);
+    expect(undoEdit(undoEdit(undoEdit(j))).cursor).toBe(0);
+  });
+});
+
+describe('hypothesis styles stay with the hypothesis', () => {
+  it('removing one hypothesis does not recolour the others', () => {
+    const all = ['constant-velocity', 'gravity', 'half-gravity', 'gravity-3'];
+    const fewer = ['constant-velocity', 'half-gravity', 'gravity-3'];
+    for (const id of fewer) expect(hypothesisStyleIndex(id, fewer)).toBe(hypothesisStyleIndex(id, all));
+    expect(new Set(all.map((id) => hypothesisStyleIndex(id, all))).size).toBe(all.length);
+  });
+});
+
+describe('study table rows', () => {
+  const spec = (id: string): TrialSpec => ({ id, subject: 's1', condition: 'a1', file: `${id}.c3d`, excluded: false, covariates: { drop_m: 1.2 } });
+  const row = (trialId: string, muscle: string, onsetS: number | null, edited = false, invalid = false) => ({
+    trialId, subject: 's1', condition: 'a1', muscle, releaseS: 0.5, onsetS, automaticOnsetS: 0.9, onsetEdited: edited, onsetInvalid: invalid, contactS: 1.1,
+    motionDurationS: 0.6, excluded: false, usable: onsetS !== null, covariates: {}, hypotheses: [],
+  });
+  it('gathers muscles per trial and derives the edited, no-onset, bad-data and excluded flags', () => {
+    const evaluation = {
+      trials: [row('t1', 'FCR', 0.91, true), row('t1', 'ECR', 0.95), row('t2', 'FCR', null), row('t2', 'ECR', null, true, true)],
+      flags: [{ trialId: 't3', flag: { code: 'too-many-gaps', message: 'gaps', severity: 'error' } }],
+      failed: [],
+    } as unknown as StudyEvaluation;
+    const rows = buildTrialRows([spec('t1'), spec('t2'), spec('t3')], evaluation, { t2: 'ball touched the rail' });
+    expect(rows.map((r) => r.id)).toEqual(['t1', 't2', 't3']);
+    expect(rows[0]).toMatchObject({ edited: true, noOnset: false, excluded: false, contactS: 1.1 });
+    expect(rows[0].muscles.FCR).toEqual({ onsetS: 0.91, automaticOnsetS: 0.9, edited: true, invalid: false });
+    expect(rows[1]).toMatchObject({ noOnset: true, excluded: true, excludeReason: 'ball touched the rail' });
+    expect(rows[1].muscles.ECR.invalid).toBe(true);
+    expect(rows[2]).toMatchObject({ badData: true, noOnset: false });
+  });
+});
