@@ -71,70 +71,7 @@ export function compareGroup(
   for (let h = 0; h < H; h++) dLogLik[h] = logLik[h] - logLik[best];
   const dLo = new Float64Array(H).fill(NaN);
   const dHi = new Float64Array(H).fill(NaN);
-  if (replicates > 0 && n >= 3) {
-    // per row and hypothesis: w = 1/J^2, w x, w x^2 (one pass per resample, no division in the loop)
-    const rowsAll = group.rows;
-    const R = rowsAll.length;
-    const w = new Float64Array(H * R);
-    const wx = new Float64Array(H * R);
-    const wxx = new Float64Array(H * R);
-    const local = new Map<number, number>();
-    for (let i = 0; i < R; i++) local.set(rowsAll[i], i);
-    const strataLocal = group.strata.map((s) => Int32Array.from(s, (r) => local.get(r)!));
-    for (let h = 0; h < H; h++) {
-      const x = ttcByHyp[h];
-      const j = jacByHyp[h];
-      for (let i = 0; i < R; i++) {
-        const r = rowsAll[i];
-        const wi = 1 / (j[r] * j[r]);
-        w[h * R + i] = wi;
-        wx[h * R + i] = wi * x[r];
-        wxx[h * R + i] = wi * x[r] * x[r];
-      }
-    }
-    const rng = seededRandom(seed);
-    const draws = new Float64Array(replicates * H);
-    const idx = strataLocal.map((s) => new Int32Array(s.length));
-    const ll = new Float64Array(H);
-    const floor2 = SPREAD_FLOOR_S * SPREAD_FLOOR_S;
-    const LOG2PI = Math.log(2 * Math.PI);
-    for (let b = 0; b < replicates; b++) {
-      for (let s = 0; s < strataLocal.length; s++) {
-        const src = strataLocal[s];
-        const dst = idx[s];
-        const m = src.length;
-        for (let i = 0; i < m; i++) dst[i] = src[Math.floor(rng.uniform() * m)];
-      }
-      for (let h = 0; h < H; h++) {
-        const off = h * R;
-        let sum = 0;
-        for (let s = 0; s < idx.length; s++) {
-          const ids = idx[s];
-          const m = ids.length;
-          if (m === 0) continue;
-          let sw = 0;
-          let swx = 0;
-          let swxx = 0;
-          for (let i = 0; i < m; i++) {
-            const q = off + ids[i];
-            sw += w[q];
-            swx += wx[q];
-            swxx += wxx[q];
-          }
-          // sum w (x - mean)^2 = sum w x^2 - (sum w x)^2 / sum w
-          const v = Math.max((swxx - (swx * swx) / sw) / m, floor2);
-          sum += -0.5 * m * (LOG2PI + Math.log(v) + 1);
-        }
-        ll[h] = sum;
-      }
-      for (let h = 0; h < H; h++) draws[h * replicates + b] = ll[h] - ll[best];
-    }
-    for (let h = 0; h < H; h++) {
-      const d = draws.subarray(h * replicates, (h + 1) * replicates).sort();
-      dLo[h] = quantileSorted(d, 0.025);
-      dHi[h] = quantileSorted(d, 0.975);
-    }
-  }
+  if (replicates > 0 && n >= 3) bootstrapDifferences(group, ttcByHyp, jacByHyp, best, replicates, seed, dLo, dHi);
   return { n, logLik, k, aic, bic, posterior, dLogLik, dLo, dHi, best };
 }
 
@@ -153,4 +90,96 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
   const lo = Math.floor(h);
   const hi = Math.min(lo + 1, n - 1);
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/**
+ * Seeded bootstrap percentile intervals of logLik_h - logLik_best (rows resampled with replacement within
+ * each stratum, the same resample for every hypothesis). Each resample is scored from sufficient
+ * statistics: per row and hypothesis w = 1/J^2, w d and w d^2 with d = ttc - c, c the stratum's weighted
+ * mean under that hypothesis (centring keeps sum w d^2 - (sum w d)^2 / sum w free of cancellation when the
+ * spread is small against the threshold). The rows' statistics sit side by side (row-major, 3H values per
+ * row) so a draw reads one contiguous block; a stratum's draws come in one call of the generator.
+ */
+function bootstrapDifferences(
+  group: RowGroup,
+  ttcByHyp: readonly Float64Array[],
+  jacByHyp: readonly Float64Array[],
+  best: number,
+  replicates: number,
+  seed: number,
+  dLo: Float64Array,
+  dHi: Float64Array,
+): void {
+  const H = ttcByHyp.length;
+  const W = 3 * H;
+  const strata = group.strata;
+  const S = strata.length;
+  let R = 0;
+  for (let s = 0; s < S; s++) R += strata[s].length;
+  const stats = new Float64Array(R * W);
+  const start = new Int32Array(S + 1);
+  for (let s = 0, o = 0; s < S; s++) {
+    const src = strata[s];
+    const m = src.length;
+    start[s] = o;
+    for (let h = 0; h < H; h++) {
+      const x = ttcByHyp[h];
+      const j = jacByHyp[h];
+      let sw = 0;
+      let swx = 0;
+      for (let i = 0; i < m; i++) {
+        const wi = 1 / (j[src[i]] * j[src[i]]);
+        sw += wi;
+        swx += wi * x[src[i]];
+      }
+      const c = swx / sw;
+      for (let i = 0; i < m; i++) {
+        const r = src[i];
+        const wi = 1 / (j[r] * j[r]);
+        const d = x[r] - c;
+        const q = (o + i) * W + 3 * h;
+        stats[q] = wi;
+        stats[q + 1] = wi * d;
+        stats[q + 2] = wi * d * d;
+      }
+    }
+    o += m;
+    start[s + 1] = o;
+  }
+  const rng = seededRandom(seed);
+  const draws = new Float64Array(replicates * H);
+  const idx = new Int32Array(R);
+  const ll = new Float64Array(H);
+  const floor2 = SPREAD_FLOOR_S * SPREAD_FLOOR_S;
+  const LOG2PI = Math.log(2 * Math.PI);
+  for (let b = 0; b < replicates; b++) {
+    ll.fill(0);
+    for (let s = 0; s < S; s++) {
+      const m = start[s + 1] - start[s];
+      if (m === 0) continue;
+      const base = start[s];
+      rng.fillInt(idx, m, m);
+      for (let h = 0; h < H; h++) {
+        const off = base * W + 3 * h;
+        let sw = 0;
+        let swd = 0;
+        let swdd = 0;
+        for (let i = 0; i < m; i++) {
+          const q = off + idx[i] * W;
+          sw += stats[q];
+          swd += stats[q + 1];
+          swdd += stats[q + 2];
+        }
+        // sum w (x - mean)^2 = sum w d^2 - (sum w d)^2 / sum w
+        const v = Math.max((swdd - (swd * swd) / sw) / m, floor2);
+        ll[h] += -0.5 * m * (LOG2PI + Math.log(v) + 1);
+      }
+    }
+    for (let h = 0; h < H; h++) draws[h * replicates + b] = ll[h] - ll[best];
+  }
+  for (let h = 0; h < H; h++) {
+    const d = draws.subarray(h * replicates, (h + 1) * replicates).sort();
+    dLo[h] = quantileSorted(d, 0.025);
+    dHi[h] = quantileSorted(d, 0.975);
+  }
 }
