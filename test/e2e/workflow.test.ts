@@ -5,7 +5,8 @@
  * test-output/screenshots/.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
+import { readFileSync, readdirSync, existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { openBrowserBuild, SCREENSHOT_DIR, SKIP_REASON, type BrowserSession } from './browserHarness';
 
 if (SKIP_REASON) console.warn(`skipping end-to-end tests: ${SKIP_REASON}`);
@@ -160,4 +161,21 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     await s.page.screenshot({ path: `${SCREENSHOT_DIR}/5-trial-dark.png`, fullPage: true });
     expect(await s.page.evaluate(() => document.documentElement.dataset.theme)).toBe('dark');
   }, 60_000);
+
+  it('opens a study from its files: the study file with its C3D and EDF+ recordings chosen together', async () => {
+    const folder = fileURLToPath(new URL('../../assets/demo/', import.meta.url));
+    if (!existsSync(`${folder}study.forecatch.json`)) return; // the CLI's demo files are not in this checkout
+    const files = (readdirSync(folder, { recursive: true }) as string[]).filter((f) => /\.(json|c3d|edf)$/.test(f)).map((f) => `${folder}${f}`);
+    await s.page.goto(`${s.url}`);
+    await s.page.reload();
+    const chooser = s.page.waitForEvent('filechooser');
+    await s.page.click('button:has-text("Open study…")');
+    await (await chooser).setFiles(files);
+    await s.page.waitForSelector('[data-testid=status-evaluation]', { timeout: 240_000 });
+    expect(await s.page.locator('.study-name').textContent()).toContain('rail lab');
+    expect(await s.page.locator('table.trials tbody tr').count()).toBe(72);
+    const onsets = await s.page.locator('table.trials td[data-muscle="FCR"]').allTextContents();
+    expect(onsets.filter((t) => /^\d+\.\d{3}/.test(t)).length).toBeGreaterThan(60);
+    expect(await s.page.locator('.chip-bad').count()).toBe(0);
+  }, 300_000);
 });

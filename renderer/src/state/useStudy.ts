@@ -99,8 +99,9 @@ export function useStudy(host: Host) {
     async (opened: StudyOpened, displayPath: string | null) => {
       setState((s) => ({ ...s, study: opened, settings: opened.settings, journal: opened.journal, exclusions: Object.fromEntries(opened.trials.filter((t) => t.excluded).map((t) => [t.id, t.excludeReason ?? 'excluded'])), evaluation: null, dirty: false, displayPath, error: null, progress: { done: 0, total: opened.trials.length, label: 'preparing trials' } }));
       const exclusions = Object.fromEntries(opened.trials.filter((t) => t.excluded).map((t) => [t.id, t.excludeReason ?? 'excluded']));
-      await client.call({ type: 'prepare', settings: opened.settings }, (done, total, label) => setState((s) => ({ ...s, progress: { done, total, label } })));
-      await evaluate(opened.settings, opened.journal, exclusions);
+      const prepared = await client.call({ type: 'prepare', settings: opened.settings }, (done, total, label) => setState((s) => ({ ...s, progress: { done, total, label } })));
+      setState((s) => ({ ...s, settings: prepared.settings }));
+      await evaluate(prepared.settings, opened.journal, exclusions);
     },
     [client, evaluate],
   );

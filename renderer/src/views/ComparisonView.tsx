@@ -105,7 +105,9 @@ export function ComparisonView(props: ComparisonViewProps) {
   }, [profiles, c]);
 
   const profileCurves = useMemo(() => {
-    const data: PlotData[] = profiles.slice(0, 8).map((p, i) => {
+    // pooled profiles per condition when all subjects are shown, else the subject's own
+    const shown = profiles.filter((p) => (subject === 'all' ? p.subject === 'all' : true)).slice(0, 8);
+    const data: PlotData[] = shown.map((p, i) => {
       const max = Math.max(...Array.from(p.logLik).filter(Number.isFinite));
       return { type: 'scatter', mode: 'lines', x: Array.from(p.gMps2), y: Array.from(p.logLik, (v) => v - max), name: `${p.subject} · ${p.condition}`, line: { color: hypothesisColour(i), dash: HYPOTHESIS_DASHES[i % HYPOTHESIS_DASHES.length] } };
     });
@@ -118,7 +120,7 @@ export function ComparisonView(props: ComparisonViewProps) {
       annotations: [{ x: 1, y: -1.92, xref: 'paper', yref: 'y', text: '95% (−1.92)', showarrow: false, xanchor: 'right', yanchor: 'bottom', font: { size: 10, color: c.muted } }],
     };
     return { data, layout };
-  }, [profiles, c]);
+  }, [profiles, subject, c]);
 
   const delay = useMemo(() => {
     const list = evaluation.delaySensitivity.filter((d) => d.muscle === muscle);

@@ -93,8 +93,27 @@ function recordingOf(s: WorkerState, t: TrialSpec): TrialRecordings {
   return { kinematics, emg };
 }
 
-function prepareAll(id: number, settings: StudySettings): WorkerReplies['prepare'] {
+/**
+ * A trial list names no EMG channels: take the first readable recording's channels in volts (V, mV, uV)
+ * as the muscles, named after their labels. The user sees them in the views and can save them.
+ */
+function inferEmgChannels(s: WorkerState, settings: StudySettings): StudySettings {
+  if (settings.emgChannels.length > 0) return settings;
+  for (const t of s.trials) {
+    try {
+      const r = recordingOf(s, t);
+      const signals = [...r.kinematics.signals, ...(r.emg?.signals ?? [])].filter((c) => /^(u|µ|m)?V$/i.test(c.units.trim()));
+      if (signals.length > 0) return { ...settings, emgChannels: signals.map((c) => ({ channel: c.label, muscle: c.label })) };
+    } catch {
+      /* try the next trial */
+    }
+  }
+  return settings;
+}
+
+function prepareAll(id: number, requested: StudySettings): WorkerReplies['prepare'] {
   const s = requireState();
+  const settings = inferEmgChannels(s, requested);
   s.settings = settings;
   const t0 = performance.now();
   const prepared: PreparedTrial[] = [];
@@ -118,7 +137,7 @@ function prepareAll(id: number, settings: StudySettings): WorkerReplies['prepare
   s.prepared = prepared;
   s.failed = failed;
   s.preparedWith = preparationKey(settings);
-  return { prepared: prepared.length, failed, ms: performance.now() - t0 };
+  return { prepared: prepared.length, failed, ms: performance.now() - t0, settings };
 }
 
 function evaluate(settings: StudySettings, journal: OnsetJournalLike, exclusions: Exclusions, quick: boolean, id: number): WorkerReplies['evaluate'] {

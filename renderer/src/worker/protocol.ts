@@ -45,7 +45,8 @@ export interface WorkerReplies {
   openDemo: StudyOpened;
   openStudy: StudyOpened;
   addFile: { received: number; missing: string[] };
-  prepare: { prepared: number; failed: FailedTrial[]; ms: number };
+  /** `settings`: as used, with EMG channels filled in when a trial list named none (see the worker). */
+  prepare: { prepared: number; failed: FailedTrial[]; ms: number; settings: StudySettings };
   evaluate: { evaluation: StudyEvaluation; ms: number; quick: boolean };
   trialDetail: TrialDetail;
   exports: { trialsCsv: string; modelsCsv: string; methodsTxt: string };
