@@ -56,6 +56,21 @@ export function designConditioningFilters(rateHz: number, settings: EmgCondition
   return { bandPass, notch, envelope, minSamples };
 }
 
+/** Sum of the samples in four interleaved partial sums (not finite when any sample is not). */
+function finiteSum(x: Float64Array | Float32Array): number {
+  const n = x.length;
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let i = 0;
+  for (; i + 3 < n; i += 4) {
+    s0 += x[i];
+    s1 += x[i + 1];
+    s2 += x[i + 2];
+    s3 += x[i + 3];
+  }
+  for (; i < n; i++) s0 += x[i];
+  return s0 + s1 + (s2 + s3);
+}
+
 function applyFilter(sos: Sos, y: Float64Array, zeroPhase: boolean): void {
   if (zeroPhase) sosFiltFilt(sos, y, { out: y });
   else sosFilt(sos, y, sosFiltZi(sos).map((v) => v * y[0]), y);
@@ -89,23 +104,21 @@ export function conditionEmg(
   if (out && (out.conditioned.length !== n || out.envelope.length !== n || out.conditioned === out.envelope)) {
     throw new RangeError(`conditionEmg: out buffers must be two distinct arrays of ${n} samples`);
   }
-  let conditioned: Float64Array;
-  if (out) {
-    conditioned = out.conditioned;
-    conditioned.set(signal);
-  } else conditioned = new Float64Array(signal);
-  // One pass: the sum (for the offset) is finite only when every sample is.
-  let sum = 0;
-  for (let i = 0; i < n; i++) sum += conditioned[i];
+  const conditioned = out ? out.conditioned : new Float64Array(n);
+  // One read of the input: the sum (for the offset) is finite only when every sample is. Four partial sums
+  // keep the additions independent of each other (the mean may differ from a sequential sum in the last bit).
+  let sum = finiteSum(signal);
   const finite = sum - sum === 0;
+  if (finite && settings.removeOffset) {
+    // Copy and offset removal in one pass.
+    const mean = sum / n;
+    for (let i = 0; i < n; i++) conditioned[i] = signal[i] - mean;
+  } else conditioned.set(signal);
   const mask = new Uint8Array(finite ? 0 : n);
   const nanCount = finite ? 0 : fillGaps(conditioned, mask);
   if (nanCount === n) throw new RangeError(`conditionEmg: none of the ${n} samples is finite`);
-  if (settings.removeOffset) {
-    if (!finite) {
-      sum = 0;
-      for (let i = 0; i < n; i++) sum += conditioned[i];
-    }
+  if (!finite && settings.removeOffset) {
+    sum = finiteSum(conditioned);
     const mean = sum / n;
     for (let i = 0; i < n; i++) conditioned[i] -= mean;
   }

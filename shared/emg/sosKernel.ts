@@ -8,6 +8,7 @@
  * rounding (test/emg/filters.test.ts).
  */
 import { settleSamples, sweep1, sweep2Split, sweep4, sweep4Split } from './sosSweeps';
+import { hasUnitOuterTaps, sweep4SplitUnit } from './sosSweepsUnit';
 import type { Sos } from './zpkToSos';
 
 /**
@@ -31,8 +32,9 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
       const w = settleSamples(sos[t * 6 + 4], sos[t * 6 + 5]);
       warm = w === 0 || warm < 0 ? -1 : Math.max(warm, w);
     }
-    if (warm > 0 && count > 4 * warm) sweep4Split(sos, buf, s, first, count, step, state, warm);
-    else break;
+    if (!(warm > 0 && count > 4 * warm)) break;
+    if (hasUnitOuterTaps(sos, s)) sweep4SplitUnit(sos, buf, s, first, count, step, state, warm);
+    else sweep4Split(sos, buf, s, first, count, step, state, warm);
   }
   for (; s + 1 < nSec; s += 2) {
     const warm = Math.max(settleSamples(sos[s * 6 + 4], sos[s * 6 + 5]), settleSamples(sos[s * 6 + 10], sos[s * 6 + 11]));

@@ -26,22 +26,23 @@ export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothin
     throw new RangeError(`smoothedTkeo: out must be a separate buffer of ${n} samples`);
   }
   const lp = butterworthSos(2, smoothingHz, rateHz, 'lowpass', { correctForPasses: 2 });
-  // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass; the sum tells whether any sample was not finite.
+  // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass, noting whether any value was not finite
+  // (a compare per sample rather than a running sum, whose additions would each wait for the one before).
   let psi: Float64Array = out ?? new Float64Array(n);
-  let sum = 0;
+  let allFinite = true;
   let a = conditioned[0];
   let b = conditioned[1];
   for (let i = 1; i < n - 1; i++) {
     const c = conditioned[i + 1];
     const v = Math.abs(b * b - c * a);
     psi[i] = v;
-    sum += v;
+    if (!(v < Infinity)) allFinite = false;
     a = b;
     b = c;
   }
   psi[0] = psi[1];
   psi[n - 1] = psi[n - 2];
-  if (sum - sum === 0 && conditioned[0] - conditioned[0] === 0 && conditioned[n - 1] - conditioned[n - 1] === 0) {
+  if (allFinite && conditioned[0] - conditioned[0] === 0 && conditioned[n - 1] - conditioned[n - 1] === 0) {
     return sosFiltFilt(lp, psi, { out: psi });
   }
   // Non-finite samples: bridge them for the operator and the filter, then mark them NaN again.
