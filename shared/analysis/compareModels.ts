@@ -1,6 +1,7 @@
 import type { RowGroup } from './groups';
 import { SPREAD_FLOOR_S, stratifiedMaxLogLik } from './thresholdModel';
 import { seededRandom } from './seededRandom';
+import { bootstrapEntries, findBootstrap, rememberBootstrap } from './evaluationMemo';
 
 /** Comparison of hypotheses in one group. */
 export interface GroupComparison {
@@ -31,6 +32,9 @@ export interface GroupComparison {
  * @param paramsPerStratum - free parameters per stratum per hypothesis (2, or 3 with a fitted prior width)
  * @param replicates - bootstrap replicates (0 = none: intervals NaN)
  * @param seed - bootstrap seed
+ * @param memoLabel - when given (a label naming the group, e.g. subject, condition and muscle), each
+ *   hypothesis' bootstrap replicates are kept between calls and reused while its values at the group's rows,
+ *   the strata, seed and replicate count stay the same (evaluationMemo.ts); results are identical either way
  * @returns the comparison
  * @see Akaike 1974, IEEE Trans Automat Contr 19:716-723; Schwarz 1978, Ann Stat 6:461-464;
  *   Wagenmakers & Farrell 2004, Psychon Bull Rev 11:192-196 (weights from information criteria);
@@ -43,6 +47,7 @@ export function compareGroup(
   paramsPerStratum: readonly number[],
   replicates: number,
   seed: number,
+  memoLabel?: string,
 ): GroupComparison {
   const H = ttcByHyp.length;
   const n = group.rows.length;
@@ -71,7 +76,7 @@ export function compareGroup(
   for (let h = 0; h < H; h++) dLogLik[h] = logLik[h] - logLik[best];
   const dLo = new Float64Array(H).fill(NaN);
   const dHi = new Float64Array(H).fill(NaN);
-  if (replicates > 0 && n >= 3) bootstrapDifferences(group, ttcByHyp, jacByHyp, best, replicates, seed, dLo, dHi);
+  if (replicates > 0 && n >= 3) bootstrapDifferences(group, ttcByHyp, jacByHyp, best, replicates, seed, dLo, dHi, memoLabel);
   return { n, logLik, k, aic, bic, posterior, dLogLik, dLo, dHi, best };
 }
 
@@ -97,8 +102,11 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
  * each stratum, the same resample for every hypothesis). Each resample is scored from sufficient
  * statistics: per row and hypothesis w = 1/J^2, w d and w d^2 with d = ttc - c, c the stratum's weighted
  * mean under that hypothesis (centring keeps sum w d^2 - (sum w d)^2 / sum w free of cancellation when the
- * spread is small against the threshold). The rows' statistics sit side by side (row-major, 3H values per
- * row) so a draw reads one contiguous block; a stratum's draws come in one call of the generator.
+ * spread is small against the threshold). The rows' statistics sit side by side (row-major, 3 values per
+ * hypothesis) so a draw reads one contiguous block; a stratum's draws come in one call of the generator.
+ * A hypothesis' replicate log-likelihoods depend only on the resamples (strata, seed) and its own values,
+ * so with a memo label they are kept between evaluations and reused while those stay equal (toggling
+ * other hypotheses leaves them untouched).
  */
 function bootstrapDifferences(
   group: RowGroup,
@@ -109,19 +117,59 @@ function bootstrapDifferences(
   seed: number,
   dLo: Float64Array,
   dHi: Float64Array,
+  memoLabel: string | undefined,
 ): void {
   const H = ttcByHyp.length;
-  const W = 3 * H;
   const strata = group.strata;
   const S = strata.length;
-  let R = 0;
-  for (let s = 0; s < S; s++) R += strata[s].length;
-  const stats = new Float64Array(R * W);
   const start = new Int32Array(S + 1);
-  for (let s = 0, o = 0; s < S; s++) {
+  for (let s = 0; s < S; s++) start[s + 1] = start[s] + strata[s].length;
+  const R = start[S];
+  const rows = new Int32Array(R);
+  for (let s = 0; s < S; s++) rows.set(strata[s], start[s]);
+  const entries = memoLabel === undefined ? null : bootstrapEntries(memoLabel, strata, seed, replicates);
+  const llByHyp: Float64Array[] = new Array(H);
+  const missing: number[] = [];
+  for (let h = 0; h < H; h++) {
+    const found = entries ? findBootstrap(entries, rows, ttcByHyp[h], jacByHyp[h]) : null;
+    if (found) llByHyp[h] = found.ll;
+    else missing.push(h);
+  }
+  if (missing.length > 0) {
+    const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, seed);
+    missing.forEach((h, i) => {
+      llByHyp[h] = fresh[i];
+      if (entries) rememberBootstrap(entries, { ttc: Float64Array.from(rows, (r) => ttcByHyp[h][r]), jac: Float64Array.from(rows, (r) => jacByHyp[h][r]), ll: fresh[i] });
+    });
+  }
+  const d = new Float64Array(replicates);
+  const llBest = llByHyp[best];
+  for (let h = 0; h < H; h++) {
+    const ll = llByHyp[h];
+    for (let b = 0; b < replicates; b++) d[b] = ll[b] - llBest[b];
+    d.sort();
+    dLo[h] = quantileSorted(d, 0.025);
+    dHi[h] = quantileSorted(d, 0.975);
+  }
+}
+
+/** Maximised log-likelihood of every bootstrap resample for each of the given hypotheses (see above). */
+function replicateLogLiks(
+  strata: readonly Int32Array[],
+  start: Int32Array,
+  ttcByHyp: readonly Float64Array[],
+  jacByHyp: readonly Float64Array[],
+  replicates: number,
+  seed: number,
+): Float64Array[] {
+  const H = ttcByHyp.length;
+  const W = 3 * H;
+  const S = strata.length;
+  const R = start[S];
+  const stats = new Float64Array(R * W);
+  for (let s = 0; s < S; s++) {
     const src = strata[s];
     const m = src.length;
-    start[s] = o;
     for (let h = 0; h < H; h++) {
       const x = ttcByHyp[h];
       const j = jacByHyp[h];
@@ -137,30 +185,25 @@ function bootstrapDifferences(
         const r = src[i];
         const wi = 1 / (j[r] * j[r]);
         const d = x[r] - c;
-        const q = (o + i) * W + 3 * h;
+        const q = (start[s] + i) * W + 3 * h;
         stats[q] = wi;
         stats[q + 1] = wi * d;
         stats[q + 2] = wi * d * d;
       }
     }
-    o += m;
-    start[s + 1] = o;
   }
   const rng = seededRandom(seed);
-  const draws = new Float64Array(replicates * H);
+  const out = ttcByHyp.map(() => new Float64Array(replicates));
   const idx = new Int32Array(R);
-  const ll = new Float64Array(H);
   const floor2 = SPREAD_FLOOR_S * SPREAD_FLOOR_S;
   const LOG2PI = Math.log(2 * Math.PI);
   for (let b = 0; b < replicates; b++) {
-    ll.fill(0);
     for (let s = 0; s < S; s++) {
       const m = start[s + 1] - start[s];
       if (m === 0) continue;
-      const base = start[s];
       rng.fillInt(idx, m, m);
       for (let h = 0; h < H; h++) {
-        const off = base * W + 3 * h;
+        const off = start[s] * W + 3 * h;
         let sw = 0;
         let swd = 0;
         let swdd = 0;
@@ -172,14 +215,9 @@ function bootstrapDifferences(
         }
         // sum w (x - mean)^2 = sum w d^2 - (sum w d)^2 / sum w
         const v = Math.max((swdd - (swd * swd) / sw) / m, floor2);
-        ll[h] += -0.5 * m * (LOG2PI + Math.log(v) + 1);
+        out[h][b] += -0.5 * m * (LOG2PI + Math.log(v) + 1);
       }
     }
-    for (let h = 0; h < H; h++) draws[h * replicates + b] = ll[h] - ll[best];
   }
-  for (let h = 0; h < H; h++) {
-    const d = draws.subarray(h * replicates, (h + 1) * replicates).sort();
-    dLo[h] = quantileSorted(d, 0.025);
-    dHi[h] = quantileSorted(d, 0.975);
-  }
+  return out;
 }

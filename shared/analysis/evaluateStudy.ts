@@ -20,6 +20,8 @@ import { gravityGrid, internalGravityProfiles, ttcOverGravityGrid } from './inte
 import { ALL } from './groups';
 import { stableHash } from './stableHash';
 import { FORECATCH_VERSION } from '../version';
+import { canonicalJson } from './canonicalJson';
+import { memoSlot, sameMemoKey, type MemoKey } from './evaluationMemo';
 
 /** Options of {@link evaluateStudy}. */
 export interface EvaluateStudyOptions {
@@ -73,7 +75,7 @@ export function evaluateStudy(
   const k = paramsPerStratum(settings);
   const models: ModelComparisonRow[] = [];
   mat.groups.forEach((g, gi) => {
-    const cmp = compareGroup(g, mat.ttcByHyp, mat.jacByHyp, k, settings.bootstrap.replicates, settings.bootstrap.seed + gi);
+    const cmp = compareGroup(g, mat.ttcByHyp, mat.jacByHyp, k, settings.bootstrap.replicates, settings.bootstrap.seed + gi, `${g.subject}\u0000${g.condition}\u0000${g.muscle}`);
     const ig = internalGravity[gi];
     for (let h = 0; h < hyps.length; h++) {
       const s = summaries[gi * hyps.length + h];
@@ -214,11 +216,56 @@ export function evaluateDelaySensitivity(prepared: readonly PreparedTrial[], set
   return sweepDelays(buildCutoffRows(prepared, settings, journal), prepared, settings);
 }
 
+/** The last delay sweep and everything it was computed from. */
+const sweepMemo = memoSlot<DelaySensitivity[]>();
+
+/**
+ * Everything the delay sweep reads: the settings it uses (not the current cutoff, bootstrap or gravity grid)
+ * and, per trial, the identity of the cached series plus the scalars it uses, and every row's onset.
+ */
+function sweepKey(rows: CutoffRows, prepared: readonly PreparedTrial[], settings: StudySettings): MemoKey {
+  const key: unknown[] = [
+    canonicalJson({
+      hypotheses: settings.hypotheses,
+      stateSource: settings.stateSource,
+      priorWidthGrid: settings.priorWidthGrid,
+      delaySweepMs: settings.delaySweepMs,
+      muscles: settings.emgChannels.map((c) => c.muscle),
+    }),
+    prepared.length,
+  ];
+  for (const p of prepared) {
+    key.push(p.timesS, p.smoothedState, p.smoothedCov, p.filteredState, p.filteredCov, p.targetHeightM);
+    key.push(p.fittedAccMps2, p.fittedAccSdMps2, p.releaseS, p.contactS, p.trial.excluded, p.trial.subject, p.trial.condition);
+  }
+  for (let r = 0; r < rows.n; r++) key.push(rows.onsetS[r]);
+  return key;
+}
+
+/** Copies of sweep results, so a caller changing them cannot change the kept ones. */
+function copySweep(sweep: readonly DelaySensitivity[]): DelaySensitivity[] {
+  if (sweep.length === 0) return [];
+  const delaysMs = Float64Array.from(sweep[0].delaysMs);
+  return sweep.map((d) => ({ ...d, delaysMs, hypotheses: [...d.hypotheses], posterior: Float64Array.from(d.posterior), logLik: Float64Array.from(d.logLik) }));
+}
+
 /**
  * Delay sensitivity: the comparison (condition `all`) recomputed with cutoff = onset - delay for every
- * delay of the sweep, per subject x muscle and pooled.
+ * delay of the sweep, per subject x muscle and pooled. It does not depend on the current cutoff, so a
+ * re-evaluation after a change of the delay (or of the bootstrap or gravity grid) reuses the last sweep
+ * when everything it reads is unchanged.
  */
 function sweepDelays(rows: CutoffRows, prepared: readonly PreparedTrial[], settings: StudySettings): DelaySensitivity[] {
+  const key = sweepKey(rows, prepared, settings);
+  if (sweepMemo.key && sweepMemo.value && sameMemoKey(sweepMemo.key, key)) return copySweep(sweepMemo.value);
+  const sweep = computeSweep(rows, prepared, settings);
+  sweepMemo.key = key;
+  sweepMemo.value = copySweep(sweep);
+  return sweep;
+}
+
+/** The sweep itself (see {@link sweepDelays}); overwrites the rows' cutoff states. */
+function computeSweep(rows: CutoffRows, prepared: readonly PreparedTrial[], settings: StudySettings): DelaySensitivity[] {
   const hyps = settings.hypotheses;
   const H = hyps.length;
   const delays = Float64Array.from(settings.delaySweepMs);

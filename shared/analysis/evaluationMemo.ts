@@ -1,0 +1,147 @@
+/**
+ * Work kept between re-evaluations of one study (the desktop app re-evaluates on every click): parts of
+ * the evaluation whose inputs did not change are reused instead of recomputed. Every entry is keyed by the
+ * full content it depends on (values, or the identity of a prepared trial's arrays, which prepareTrial
+ * always allocates afresh and which the analysis never modifies), so a reused part equals a recomputed one
+ * exactly. Prepared trials are treated as immutable: a changed trial must come as new arrays.
+ */
+
+/** A memo key: primitives and object references, compared element by element with Object.is. */
+export type MemoKey = readonly unknown[];
+
+/**
+ * Whether two memo keys are equal element by element (Object.is: NaN equals NaN, references by identity).
+ *
+ * @param a - first key
+ * @param b - second key
+ * @returns true when both have the same length and equal elements
+ */
+export function sameMemoKey(a: MemoKey, b: MemoKey): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
+}
+
+/** A single-slot memo: the last key and its value. */
+export interface MemoSlot<T> {
+  key: MemoKey | null;
+  value: T | null;
+}
+
+/** Bootstrap replicate log-likelihoods of one hypothesis in one group, with the values they came from. */
+export interface BootstrapEntry {
+  /** ttc per group row (group.rows order), s. */
+  ttc: Float64Array;
+  /** Jacobian per group row. */
+  jac: Float64Array;
+  /** Maximised log-likelihood of each bootstrap resample. */
+  ll: Float64Array;
+}
+
+/** Entries of one group (same strata, seed and replicate count), most recent last. */
+interface BootstrapBucket {
+  strataLengths: Int32Array;
+  rows: Int32Array;
+  entries: BootstrapEntry[];
+}
+
+/** Entries kept per group: enough for toggling hypotheses of a set of a dozen back and forth. */
+const ENTRIES_PER_GROUP = 24;
+/** Groups kept before the pool is emptied (a few studies' worth of subject x condition x muscle cells). */
+const MAX_GROUPS = 512;
+
+const bootstrapPool = new Map<string, BootstrapBucket>();
+const memoSlots: MemoSlot<unknown>[] = [];
+
+/**
+ * A named single-slot memo registered for {@link clearEvaluationMemo}.
+ *
+ * @returns an empty slot
+ */
+export function memoSlot<T>(): MemoSlot<T> {
+  const slot: MemoSlot<T> = { key: null, value: null };
+  memoSlots.push(slot as MemoSlot<unknown>);
+  return slot;
+}
+
+function sameInt32(a: Int32Array, b: ArrayLike<number>, offset = 0): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[offset + i]) return false;
+  return true;
+}
+
+/**
+ * The bucket of bootstrap entries of one group (subject x condition x muscle, strata, seed, replicates),
+ * emptied when the group's rows changed.
+ *
+ * @param label - subject, condition and muscle of the group
+ * @param strata - the group's strata of row indices
+ * @param seed - bootstrap seed of the group
+ * @param replicates - replicate count
+ * @returns the group's entries (mutable list; add new ones with {@link rememberBootstrap})
+ */
+export function bootstrapEntries(label: string, strata: readonly Int32Array[], seed: number, replicates: number): BootstrapEntry[] {
+  const key = `${label}\u0000${seed}\u0000${replicates}`;
+  let bucket = bootstrapPool.get(key);
+  let same = !!bucket && bucket.strataLengths.length === strata.length;
+  if (bucket && same) {
+    for (let s = 0, o = 0; s < strata.length && same; s++) {
+      same = bucket.strataLengths[s] === strata[s].length && sameInt32(strata[s], bucket.rows, o);
+      o += strata[s].length;
+    }
+  }
+  if (!bucket || !same) {
+    if (bootstrapPool.size >= MAX_GROUPS) bootstrapPool.clear();
+    let n = 0;
+    for (const s of strata) n += s.length;
+    const rows = new Int32Array(n);
+    for (let s = 0, o = 0; s < strata.length; s++) {
+      rows.set(strata[s], o);
+      o += strata[s].length;
+    }
+    bucket = { strataLengths: Int32Array.from(strata, (s) => s.length), rows, entries: [] };
+    bootstrapPool.set(key, bucket);
+  }
+  return bucket.entries;
+}
+
+/**
+ * Finds the entry whose ttc and Jacobian equal the given values at the group's rows.
+ *
+ * @param entries - the group's entries
+ * @param rows - the group's rows (concatenated strata)
+ * @param ttc - ttc per row of the study, s
+ * @param jac - Jacobian per row of the study
+ * @returns the matching entry or null
+ */
+export function findBootstrap(entries: readonly BootstrapEntry[], rows: Int32Array, ttc: Float64Array, jac: Float64Array): BootstrapEntry | null {
+  for (let e = entries.length - 1; e >= 0; e--) {
+    const entry = entries[e];
+    let same = true;
+    for (let i = 0; i < rows.length && same; i++) same = Object.is(entry.ttc[i], ttc[rows[i]]) && Object.is(entry.jac[i], jac[rows[i]]);
+    if (same) return entry;
+  }
+  return null;
+}
+
+/**
+ * Adds an entry to a group's bucket (the oldest dropped past the per-group limit).
+ *
+ * @param entries - the group's entries from {@link bootstrapEntries}
+ * @param entry - the new entry
+ */
+export function rememberBootstrap(entries: BootstrapEntry[], entry: BootstrapEntry): void {
+  entries.push(entry);
+  if (entries.length > ENTRIES_PER_GROUP) entries.shift();
+}
+
+/**
+ * Forgets everything kept between evaluations (for measuring cold evaluations, or to free memory when a
+ * study is closed). Results never depend on it.
+ */
+export function clearEvaluationMemo(): void {
+  bootstrapPool.clear();
+  for (const s of memoSlots) {
+    s.key = null;
+    s.value = null;
+  }
+}
