@@ -4,11 +4,13 @@
  */
 import { butterworthSos } from './butterworthSos';
 import { fillGaps } from './fillGaps';
+import { filtFiltFrom } from './filtFiltFrom';
 import { mainsNotchSos } from './iirNotch';
 import { movingRms } from './movingRms';
 import { sosFilt } from './sosFilt';
 import { sosFiltZi } from './sosFilt';
 import { defaultPadLength, sosFiltFilt } from './sosFiltFilt';
+import { sosFiltFiltMapped } from './sosFiltFiltMapped';
 import { validateConditioning, type EmgConditioningSettings } from './emgConditioningSettings';
 import type { Sos } from './zpkToSos';
 
@@ -109,9 +111,14 @@ export function conditionEmg(
   // keep the additions independent of each other (the mean may differ from a sequential sum in the last bit).
   let sum = finiteSum(signal);
   const finite = sum - sum === 0;
-  if (finite && settings.removeOffset) {
+  const mean = finite && settings.removeOffset ? sum / n : 0;
+  // Zero-phase band-pass of a finite Float64Array: the filter's first pass reads signal - mean itself (no copy, no
+  // separate offset pass); the same arithmetic as removing the offset in place and filtering.
+  const direct =
+    finite && filters.bandPass !== null && settings.zeroPhase && signal instanceof Float64Array && (signal === conditioned || signal.buffer !== conditioned.buffer);
+  if (direct) filtFiltFrom(filters.bandPass as Sos, signal as Float64Array, mean, conditioned, defaultPadLength(filters.bandPass as Sos));
+  else if (finite && settings.removeOffset) {
     // Copy and offset removal in one pass.
-    const mean = sum / n;
     for (let i = 0; i < n; i++) conditioned[i] = signal[i] - mean;
   } else conditioned.set(signal);
   const mask = new Uint8Array(finite ? 0 : n);
@@ -122,13 +129,16 @@ export function conditionEmg(
     const mean = sum / n;
     for (let i = 0; i < n; i++) conditioned[i] -= mean;
   }
-  if (filters.bandPass) applyFilter(filters.bandPass, conditioned, settings.zeroPhase);
+  if (filters.bandPass && !direct) applyFilter(filters.bandPass, conditioned, settings.zeroPhase);
   if (filters.notch) applyFilter(filters.notch, conditioned, settings.zeroPhase);
   let envelope: Float64Array;
   if (filters.envelope) {
     envelope = out ? out.envelope : new Float64Array(n);
-    for (let i = 0; i < n; i++) envelope[i] = Math.abs(conditioned[i]);
-    applyFilter(filters.envelope, envelope, settings.zeroPhase);
+    // Zero-phase: rectification happens as the envelope filter's forward pass reads (when that path applies).
+    if (!(settings.zeroPhase && sosFiltFiltMapped(filters.envelope, conditioned, envelope, 'abs'))) {
+      for (let i = 0; i < n; i++) envelope[i] = Math.abs(conditioned[i]);
+      applyFilter(filters.envelope, envelope, settings.zeroPhase);
+    }
   } else {
     envelope = movingRms(conditioned, 2 * Math.max(1, Math.round((settings.envelope.rmsWindowS * rateHz) / 2)) + 1, out?.envelope);
   }

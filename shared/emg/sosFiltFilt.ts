@@ -3,8 +3,8 @@
  * steady-state initial conditions, matching scipy.signal.sosfiltfilt(sos, x) with its defaults
  * (padtype='odd', padlen = 3 * (2 * n_sections + 1 - min(#b2 == 0, #a2 == 0))).
  */
-import { sosFiltZi } from './sosFilt';
-import { checkSos, sosFilterInPlace } from './sosKernel';
+import { filtFiltFrom } from './filtFiltFrom';
+import { checkSos } from './sosKernel';
 import type { Sos } from './zpkToSos';
 
 /** Options of {@link sosFiltFilt}. */
@@ -56,27 +56,11 @@ export function sosFiltFilt(sos: Sos, x: Float64Array | Float32Array, opts: SosF
   }
   if (opts.out && opts.out.length !== n) throw new RangeError(`sosFiltFilt: out has ${opts.out.length} samples, input has ${n}`);
   const out = opts.out ?? new Float64Array(n);
-  if ((out as unknown) !== x) out.set(x);
-  // The odd extensions live in two small buffers; the kernel runs left, middle, right with the state carried
-  // across, which is the same arithmetic as filtering one contiguous extended array.
-  const left = new Float64Array(edge);
-  const right = new Float64Array(edge);
-  const x0 = out[0];
-  const xn = out[n - 1];
-  for (let i = 0; i < edge; i++) {
-    left[i] = 2 * x0 - out[edge - i];
-    right[i] = 2 * xn - out[n - 2 - i];
+  // Read straight from x unless it is another view of out's memory (then copy first, as set() handles overlap).
+  if (x instanceof Float64Array && ((x as unknown) === out || x.buffer !== out.buffer)) filtFiltFrom(sos, x, 0, out, edge);
+  else {
+    out.set(x);
+    filtFiltFrom(sos, out, 0, out, edge);
   }
-  const zi = sosFiltZi(sos);
-  const state = new Float64Array(zi.length);
-  let first = edge > 0 ? left[0] : out[0];
-  for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
-  sosFilterInPlace(sos, left, 0, edge, false, state);
-  sosFilterInPlace(sos, out, 0, n, false, state);
-  sosFilterInPlace(sos, right, 0, edge, false, state);
-  first = edge > 0 ? right[edge - 1] : out[n - 1];
-  for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
-  sosFilterInPlace(sos, right, 0, edge, true, state);
-  sosFilterInPlace(sos, out, 0, n, true, state);
   return out;
 }

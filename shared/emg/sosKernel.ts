@@ -19,12 +19,26 @@ import type { Sos } from './zpkToSos';
  * @param end - last index (exclusive)
  * @param backward - run from end-1 down to start
  * @param state - n x 2 section states [s0, s1], read as initial and overwritten with final states
+ * @param src - optional source of the input (default buf): the filter reads src[i] - shift and writes buf[i], so a
+ *   copy (and an offset removal) costs no pass of its own when the first sweep can read src (otherwise it is copied first)
+ * @param shift - subtracted from every src sample as it is read (default 0)
  */
-export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end: number, backward: boolean, state: Float64Array): void {
+export function sosFilterInPlace(
+  sos: Sos,
+  buf: Float64Array,
+  start: number,
+  end: number,
+  backward: boolean,
+  state: Float64Array,
+  src: Float64Array = buf,
+  shift = 0,
+): void {
   const nSec = sos.length / 6;
   const count = end - start;
   const step = backward ? -1 : 1;
   const first = backward ? end - 1 : start;
+  let source = src;
+  let sh = shift;
   let s = 0;
   for (; s + 3 < nSec; s += 4) {
     let warm = 0;
@@ -33,9 +47,15 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
       warm = w === 0 || warm < 0 ? -1 : Math.max(warm, w);
     }
     if (!(warm > 0 && count > 4 * warm)) break;
-    if (hasUnitOuterTaps(sos, s)) sweep4SplitUnit(sos, buf, s, first, count, step, state, warm);
-    else sweep4Split(sos, buf, s, first, count, step, state, warm);
+    if (hasUnitOuterTaps(sos, s)) sweep4SplitUnit(sos, buf, s, first, count, step, state, warm, source, sh);
+    else {
+      loadShifted(source, sh, buf, start, end);
+      sweep4Split(sos, buf, s, first, count, step, state, warm);
+    }
+    source = buf;
+    sh = 0;
   }
+  loadShifted(source, sh, buf, start, end);
   for (; s + 1 < nSec; s += 2) {
     const warm = Math.max(settleSamples(sos[s * 6 + 4], sos[s * 6 + 5]), settleSamples(sos[s * 6 + 10], sos[s * 6 + 11]));
     if (warm > 0 && count > 4 * warm) sweep2Split(sos, buf, s, first, count, step, state, warm);
@@ -64,6 +84,12 @@ export function sosFilterInPlace(sos: Sos, buf: Float64Array, start: number, end
     state[s * 2 + 3] = s21;
   }
   if (s < nSec) sweep1(sos, buf, s, first, count, step, state);
+}
+
+/** buf[start..end) = src[start..end) - shift, unless src is buf and shift is 0 (nothing to do). */
+function loadShifted(src: Float64Array, shift: number, buf: Float64Array, start: number, end: number): void {
+  if (src === buf && shift === 0) return;
+  for (let i = start; i < end; i++) buf[i] = src[i] - shift;
 }
 
 /**

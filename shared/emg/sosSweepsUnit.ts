@@ -17,8 +17,21 @@ import type { Sos } from './zpkToSos';
  * @param step - 1 forward, -1 backward
  * @param state - n x 2 section states, read as initial and overwritten with final states
  * @param warm - start-up samples of the second chain (from settleSamples)
+ * @param src - where the input is read (default buf; may be buf): sample i is src[i] - shift (x - 0 === x exactly)
+ * @param shift - subtracted from every input sample as it is read (offset removal fused into the first pass)
  */
-export function sweep4SplitUnit(sos: Sos, buf: Float64Array, s: number, first: number, count: number, step: number, state: Float64Array, warm: number): void {
+export function sweep4SplitUnit(
+  sos: Sos,
+  buf: Float64Array,
+  s: number,
+  first: number,
+  count: number,
+  step: number,
+  state: Float64Array,
+  warm: number,
+  src: Float64Array = buf,
+  shift = 0,
+): void {
   const o = s * 6;
   const b10 = sos[o], b11 = sos[o + 1], b12 = sos[o + 2], a11 = sos[o + 4], a12 = sos[o + 5];
   const b21 = sos[o + 7], a21 = sos[o + 10], a22 = sos[o + 11];
@@ -32,8 +45,8 @@ export function sweep4SplitUnit(sos: Sos, buf: Float64Array, s: number, first: n
   let i = first;
   let iB = first + (half - warm) * step;
   for (let k = 0; k < half; k++, i += step, iB += step) {
-    const x = buf[i];
-    const u = buf[iB];
+    const x = src[i] - shift;
+    const u = src[iB] - shift;
     const y1 = b10 * x + s10;
     const v1 = b10 * u + t10;
     s10 = b11 * x + s11 - a11 * y1;
@@ -62,7 +75,7 @@ export function sweep4SplitUnit(sos: Sos, buf: Float64Array, s: number, first: n
     if (k >= warm) buf[iB] = v4;
   }
   for (let k = half + (half - warm); k < count; k++, iB += step) {
-    const u = buf[iB];
+    const u = src[iB] - shift;
     const v1 = b10 * u + t10;
     t10 = b11 * u + t11 - a11 * v1;
     t11 = b12 * u - a12 * v1;

@@ -5,6 +5,7 @@ import { butterworthSos } from './butterworthSos';
 import { fillGaps } from './fillGaps';
 import type { DetectorOutput, OnsetContext } from './onsetContext';
 import { sosFiltFilt } from './sosFiltFilt';
+import { sosFiltFiltMapped } from './sosFiltFiltMapped';
 import { thresholdOnStatistic } from './thresholdOnStatistic';
 import { rectify } from './rectify';
 import { tkeo } from './tkeo';
@@ -26,9 +27,13 @@ export function smoothedTkeo(conditioned: Float64Array, rateHz: number, smoothin
     throw new RangeError(`smoothedTkeo: out must be a separate buffer of ${n} samples`);
   }
   const lp = butterworthSos(2, smoothingHz, rateHz, 'lowpass', { correctForPasses: 2 });
-  // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass, noting whether any value was not finite
-  // (a compare per sample rather than a running sum, whose additions would each wait for the one before).
   let psi: Float64Array = out ?? new Float64Array(n);
+  // |psi| computed as the smoothing filter's forward pass reads it (no separate pass); false when a value
+  // is not finite or the signal is too short for that path.
+  if (conditioned[0] - conditioned[0] === 0 && conditioned[n - 1] - conditioned[n - 1] === 0 && sosFiltFiltMapped(lp, conditioned, psi, 'tkeo-abs')) {
+    return psi;
+  }
+  // |psi[x(n)]| = |x(n)^2 - x(n+1) x(n-1)| in one pass, noting whether any value was not finite.
   let allFinite = true;
   let a = conditioned[0];
   let b = conditioned[1];

@@ -1,0 +1,42 @@
+/**
+ * The arithmetic of sosFiltFilt, reading its input from a source array with an offset subtracted, so that
+ * neither the copy into the output nor the offset removal needs a pass over memory of its own.
+ */
+import { sosFiltZi } from './sosFilt';
+import { sosFilterInPlace } from './sosKernel';
+import type { Sos } from './zpkToSos';
+
+/**
+ * out = sosFiltFilt(sos, src - shift) with odd-extension padding of `edge` samples (see sosFiltFilt for the
+ * method). Arguments are not checked: sos valid, out of src's length (may be src itself), src.length > edge >= 0.
+ * @param sos - sections, n x 6, a0 = 1
+ * @param src - input samples (not modified unless it is out)
+ * @param shift - subtracted from every input sample (0 for none: x - 0 === x exactly)
+ * @param out - output buffer
+ * @param edge - odd-extension length, samples
+ * @see sosFiltFilt in sosFiltFilt.ts; Gustafsson F. (1996) IEEE Trans Signal Process 44:988-992
+ */
+export function filtFiltFrom(sos: Sos, src: Float64Array, shift: number, out: Float64Array, edge: number): void {
+  const n = src.length;
+  // The odd extensions live in two small buffers; the kernel runs left, middle, right with the state carried
+  // across, which is the same arithmetic as filtering one contiguous extended array.
+  const left = new Float64Array(edge);
+  const right = new Float64Array(edge);
+  const x0 = src[0] - shift;
+  const xn = src[n - 1] - shift;
+  for (let i = 0; i < edge; i++) {
+    left[i] = 2 * x0 - (src[edge - i] - shift);
+    right[i] = 2 * xn - (src[n - 2 - i] - shift);
+  }
+  const zi = sosFiltZi(sos);
+  const state = new Float64Array(zi.length);
+  let first = edge > 0 ? left[0] : x0;
+  for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
+  sosFilterInPlace(sos, left, 0, edge, false, state);
+  sosFilterInPlace(sos, out, 0, n, false, state, src, shift);
+  sosFilterInPlace(sos, right, 0, edge, false, state);
+  first = edge > 0 ? right[edge - 1] : out[n - 1];
+  for (let i = 0; i < zi.length; i++) state[i] = zi[i] * first;
+  sosFilterInPlace(sos, right, 0, edge, true, state);
+  sosFilterInPlace(sos, out, 0, n, true, state);
+}
