@@ -28,31 +28,38 @@ async function waitRefined(page: Page): Promise<void> {
   await page.waitForFunction(() => !document.querySelector('[data-testid=status-evaluation]')?.textContent?.includes('refining'), null, { timeout: 600_000 });
 }
 
-/** Clicks a hypothesis checkbox and returns ms until the comparison scatter has been redrawn (and the refined one). */
+/**
+ * Clicks a hypothesis checkbox; returns ms from the click until the comparison scatter has been drawn from
+ * the quick evaluation of the new hypothesis set, and until it has been drawn from the full one, with the
+ * worker's own evaluation times.
+ */
 async function toggleAndTime(page: Page, hypothesisId: string): Promise<{ quickMs: number; fullMs: number; quickWorkerMs: number; fullWorkerMs: number }> {
   return page.evaluate(async (id) => {
-    const stamp = () => document.body.dataset.comparisonPainted;
-    const waitChange = (from: string | undefined) =>
+    const input = document.querySelector(`input[data-hypothesis="${id}"]`) as HTMLInputElement;
+    const willInclude = !input.checked;
+    const workerMs = () => Number(/evaluated in (\d+) ms/.exec(document.querySelector('[data-testid=status-evaluation]')?.textContent ?? '')?.[1]);
+    const reached = (phase: string) => {
+      const [hyps, p] = (document.body.dataset.comparisonPainted ?? '').split('|');
+      return hyps.split(',').includes(id) === willInclude && p === phase;
+    };
+    const waitFor = (phase: string) =>
       new Promise<void>((resolve) => {
         const obs = new MutationObserver(() => {
-          if (stamp() !== from) {
+          if (reached(phase)) {
             obs.disconnect();
-            resolve();
+            requestAnimationFrame(() => resolve());
           }
         });
         obs.observe(document.body, { attributes: true, attributeFilter: ['data-comparison-painted'] });
       });
-    const frame = () => new Promise<void>((r) => requestAnimationFrame(() => r()));
-    const before = stamp();
+    const quick = waitFor('quick');
+    const full = waitFor('full');
     const t0 = performance.now();
-    (document.querySelector(`input[data-hypothesis="${id}"]`) as HTMLInputElement).click();
-    const workerMs = () => Number(/evaluated in (\d+) ms/.exec(document.querySelector('[data-testid=status-evaluation]')?.textContent ?? '')?.[1]);
-    await waitChange(before);
-    await frame();
+    input.click();
+    await quick;
     const quickMs = performance.now() - t0;
     const quickWorkerMs = workerMs();
-    await waitChange(stamp());
-    await frame();
+    await full;
     return { quickMs, fullMs: performance.now() - t0, quickWorkerMs, fullWorkerMs: workerMs() };
   }, hypothesisId);
 }

@@ -332,8 +332,10 @@ export function App({ host }: { host: Host }) {
               settings={state.settings}
               theme={theme}
               onOpenTrial={openTrial}
+              refining={state.refining}
               onPainted={() => {
-                document.body.dataset.comparisonPainted = `${state.evaluation?.settingsHash}:${performance.now().toFixed(1)}`;
+                // hypotheses | quick or full | time: read by the browser benchmark
+                document.body.dataset.comparisonPainted = `${state.evaluation?.hypotheses.join(',')}|${state.refining ? 'quick' : 'full'}|${performance.now().toFixed(1)}`;
               }}
             />
           )}

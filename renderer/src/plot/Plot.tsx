@@ -61,6 +61,7 @@ export function Plot(props: PlotProps) {
     const el = ref.current;
     if (!el) return;
     let cancelled = false;
+    const onDrawn = props.onDrawn; // the callback of the render whose data is drawn here
     void loadPlotly().then((Plotly) => Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
       displaylogo: false,
       responsive: false,
@@ -73,7 +74,7 @@ export function Plot(props: PlotProps) {
       gd.removeAllListeners('plotly_relayout');
       gd.on('plotly_click', (ev: { points: any[] }) => handlers.current.onClick?.(ev.points));
       gd.on('plotly_relayout', (ev: Record<string, unknown>) => handlers.current.onRelayout?.(ev, gd));
-      handlers.current.onDrawn?.(gd);
+      onDrawn?.(gd);
     });
     return () => {
       cancelled = true;

@@ -78,7 +78,15 @@ export function useStudy(host: Host) {
       try {
         const r = await client.call({ type: 'evaluate', settings, journal, exclusions, quick: true }, onProgress);
         if (seq !== requestSeq.current) return;
-        setState((s) => ({ ...s, evaluation: r.evaluation, evaluationMs: r.ms, refining: true, progress: null, error: null }));
+        // until the full evaluation arrives, keep showing the last delay sweep (marked as updating)
+        setState((s) => ({
+          ...s,
+          evaluation: r.evaluation.delaySensitivity.length === 0 && s.evaluation ? { ...r.evaluation, delaySensitivity: s.evaluation.delaySensitivity } : r.evaluation,
+          evaluationMs: r.ms,
+          refining: true,
+          progress: null,
+          error: null,
+        }));
         fullTimer.current = setTimeout(() => {
           if (seq !== requestSeq.current) return;
           void client

@@ -3,7 +3,7 @@
  * (one point per trial; a click opens the trial), the model-comparison table with posterior probabilities
  * and bootstrap intervals, the internal-gravity profile with its interval, and the delay sensitivity.
  */
-import { useMemo, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import type { PlotData, Layout } from 'plotly.js-dist-min';
 import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/types';
 import { Plot } from '../plot/Plot';
@@ -17,6 +17,8 @@ export interface ComparisonViewProps {
   onOpenTrial: (trialId: string) => void;
   /** Called after the scatter has been drawn for an evaluation (times repaints). */
   onPainted?: () => void;
+  /** True while the shown evaluation is the quick one (intervals and delay sweep still coming). */
+  refining?: boolean;
 }
 
 const G0 = 9.80665;
@@ -28,7 +30,13 @@ export function ComparisonView(props: ComparisonViewProps) {
   const [xKind, setXKind] = useState<'duration' | 'condition'>('duration');
   const subjects = useMemo(() => [...new Set(evaluation.trials.map((t) => t.subject))], [evaluation.trials]);
   const [subject, setSubject] = useState('all');
-  const labels = useMemo(() => Object.fromEntries(settings.hypotheses.map((h) => [h.id, h.label ?? h.id])), [settings.hypotheses]);
+  // labels follow the evaluation, so a settings change redraws once, when its evaluation arrives
+  const settingsRef = useRef(settings);
+  settingsRef.current = settings;
+  const labels = useMemo(
+    () => Object.fromEntries(evaluation.hypotheses.map((id) => [id, settingsRef.current.hypotheses.find((h) => h.id === id)?.label ?? id])),
+    [evaluation.hypotheses],
+  );
   const c = THEMES[theme];
 
   const scatter = useMemo(() => {
@@ -147,7 +155,7 @@ export function ComparisonView(props: ComparisonViewProps) {
       yaxis: { title: { text: 'posterior probability' }, range: [0, 1.02] },
     };
     return { data, layout, subject: pick.subject };
-  }, [evaluation.delaySensitivity, muscle, subject, labels, settings.hypotheses]);
+  }, [evaluation.delaySensitivity, muscle, subject, labels]);
 
   return (
     <section className="view comparison" aria-label="Hypothesis comparison">
@@ -220,7 +228,7 @@ export function ComparisonView(props: ComparisonViewProps) {
                         <span className="posterior">P = {r.posterior.toFixed(3)}</span>
                         <br />
                         <span className="muted">
-                          ΔlogL {r.dLogLik.toFixed(2)} [{r.dLogLikLo.toFixed(2)}, {r.dLogLikHi.toFixed(2)}]
+                          ΔlogL {r.dLogLik.toFixed(2)} {Number.isFinite(r.dLogLikLo) ? `[${r.dLogLikLo.toFixed(2)}, ${r.dLogLikHi.toFixed(2)}]` : '[…]'}
                         </span>
                         <br />
                         <span className="muted">
@@ -242,7 +250,10 @@ export function ComparisonView(props: ComparisonViewProps) {
           <Plot plotId="internal-gravity-profile" label="Profile likelihood of internal gravity" data={profileCurves.data} layout={profileCurves.layout} theme={theme} />
         </div>
         <div>
-          <h3>Delay sensitivity{delay ? ` (${delay.subject})` : ''}</h3>
+          <h3>
+            Delay sensitivity{delay ? ` (${delay.subject})` : ''}
+            {props.refining ? <span className="muted small"> updating…</span> : null}
+          </h3>
           {delay ? <Plot plotId="delay-sensitivity" label="Posterior probability against visuomotor delay" data={delay.data} layout={delay.layout} theme={theme} /> : <p className="muted">No delay sweep in this evaluation.</p>}
         </div>
       </div>
