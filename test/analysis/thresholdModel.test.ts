@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { gaussianMaxLogLik, profileInterval, stratifiedMaxLogLik } from '../../shared/analysis/thresholdModel';
 import { compareGroup, quantileSorted } from '../../shared/analysis/compareModels';
+import { quantileSelect } from '../../shared/analysis/quantileSelect';
+import { seededRandom } from '../../shared/analysis/seededRandom';
 import type { RowGroup } from '../../shared/analysis/groups';
 
 const ref = JSON.parse(readFileSync(new URL('../fixtures/analysis/thresholdModel.json', import.meta.url), 'utf8')) as {
@@ -75,5 +77,27 @@ describe('compareGroup: information criteria, posteriors and bootstrap', () => {
   it('quantiles follow Hyndman & Fan type 7 (numpy default): median of 1..4 is 2.5', () => {
     expect(quantileSorted(Float64Array.of(1, 2, 3, 4), 0.5)).toBe(2.5);
     expect(quantileSorted(Float64Array.of(1, 2, 3, 4), 0.25)).toBe(1.75);
+  });
+});
+
+describe('quantileSelect: the type-7 quantile without sorting', () => {
+  it('equals quantileSorted of the sorted values exactly (seeded random values with ties, lengths 1 to 500)', () => {
+    const rng = seededRandom(42);
+    let checked = 0;
+    for (const n of [1, 2, 3, 7, 40, 500]) {
+      for (const ties of [false, true]) {
+        const v = Float64Array.from({ length: n }, () => (ties ? Math.floor(rng.uniform() * 5) : rng.normal()));
+        const sorted = Float64Array.from(v).sort();
+        for (const q of [0, 0.025, 0.25, 0.5, 0.975, 1]) {
+          expect(quantileSelect(Float64Array.from(v), q)).toBe(quantileSorted(sorted, q));
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBe(72);
+  });
+  it('rejects NaN values and probabilities outside [0, 1]', () => {
+    expect(() => quantileSelect(Float64Array.of(1, NaN), 0.5)).toThrow(RangeError);
+    expect(() => quantileSelect(Float64Array.of(1, 2), 1.5)).toThrow(RangeError);
   });
 });
