@@ -24,7 +24,7 @@ const CHANNELS = 16;
 const DURATION_S = 60;
 const RATE_HZ = 2000;
 const REPEATS = 2;
-const ROUNDS = 4;
+const ROUNDS = 5;
 const PYTHON = '/usr/bin/python3';
 
 const PY_TIMER = `
@@ -34,35 +34,39 @@ import scipy, scipy.signal as sig
 path, channels, sos_json, repeats = sys.argv[1], int(sys.argv[2]), sys.argv[3], int(sys.argv[4])
 x = np.fromfile(path, dtype='<f8').reshape(channels, -1)
 sos = np.array(json.loads(sos_json)).reshape(-1, 6)
-best = float('inf')
-best_cpu = float('inf')
+y = sig.sosfiltfilt(sos, x, axis=-1)  # warm-up, as the Forecatch side has
+walls = []
+cpus = []
 for _ in range(repeats):
     t0 = time.perf_counter()
     c0 = time.process_time()
     y = sig.sosfiltfilt(sos, x, axis=-1)
-    best = min(best, time.perf_counter() - t0)
-    best_cpu = min(best_cpu, time.process_time() - c0)
-print(json.dumps({"seconds": best, "cpuSeconds": best_cpu, "scipy": scipy.__version__, "checksum": float(y[:, 1000:1010].sum())}))
+    walls.append(time.perf_counter() - t0)
+    cpus.append(time.process_time() - c0)
+print(json.dumps({"seconds": walls, "cpuSeconds": cpus, "scipy": scipy.__version__, "checksum": float(y[:, 1000:1010].sum())}))
 `;
 
 // A full garbage collection before each timed run, so no run pays for the garbage of the one before it.
 setFlagsFromString('--expose-gc');
 const collectGarbage = runInNewContext('gc') as () => void;
 
-/** Best wall-clock and CPU seconds of REPEATS runs. */
-function best(fn: () => void): { wall: number; cpu: number } {
-  let wall = Infinity;
-  let cpu = Infinity;
+/** Wall-clock and CPU seconds of each of REPEATS runs, appended to the lists. */
+function timeRuns(fn: () => void, wall: number[], cpu: number[]): void {
   for (let r = 0; r < REPEATS; r++) {
     collectGarbage();
     const c0 = process.cpuUsage();
     const t0 = performance.now();
     fn();
-    wall = Math.min(wall, (performance.now() - t0) / 1000);
+    wall.push((performance.now() - t0) / 1000);
     const c = process.cpuUsage(c0);
-    cpu = Math.min(cpu, (c.user + c.system) / 1e6);
+    cpu.push((c.user + c.system) / 1e6);
   }
-  return { wall, cpu };
+}
+
+function median(v: number[]): number {
+  const s = [...v].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
 function msps(samples: number, seconds: number): string {
@@ -106,12 +110,14 @@ export const suite: BenchSuite = {
         for (const x of channels) sink += sosFiltFilt(bandPass, x)[1000];
       },
     };
-    const times = { filt: Infinity, chain: Infinity, detect: Infinity, both: Infinity };
-    const cpuTimes = { ...times };
+    const keys = Object.keys(work) as (keyof typeof work)[];
+    const wallRuns = { filt: [] as number[], chain: [] as number[], detect: [] as number[], both: [] as number[] };
+    const cpuRuns = { filt: [] as number[], chain: [] as number[], detect: [] as number[], both: [] as number[] };
+    const scipyWall: number[] = [];
+    const scipyCpu: number[] = [];
 
-    // Rounds alternate Forecatch and scipy so that both meet the same machine load; each keeps its best time.
-    let scipyS: number | null = null;
-    let scipyCpuS: number | null = null;
+    // Rounds alternate Forecatch and scipy so that both meet the same machine load; every run is kept and the
+    // medians (and the best runs) are compared.
     let scipyNote = '';
     let file = '';
     let dir = '';
@@ -126,49 +132,59 @@ export const suite: BenchSuite = {
     try {
       for (const fn of Object.values(work)) fn(); // warm-up: compile every path before timing
       for (let round = 0; round < ROUNDS; round++) {
-        for (const key of Object.keys(work) as (keyof typeof work)[]) {
-          const t = best(work[key]);
-          times[key] = Math.min(times[key], t.wall);
-          cpuTimes[key] = Math.min(cpuTimes[key], t.cpu);
-        }
+        for (const key of keys) timeRuns(work[key], wallRuns[key], cpuRuns[key]);
         if (!file || scipyNote.startsWith('skipped')) continue;
         const res = spawnSync(PYTHON, ['-c', PY_TIMER, file, String(CHANNELS), JSON.stringify(Array.from(bandPass)), String(REPEATS)], { encoding: 'utf8' });
         if (res.status === 0) {
-          const out = JSON.parse(res.stdout.trim().split('\n').pop() as string) as { seconds: number; cpuSeconds: number; scipy: string };
-          scipyS = Math.min(scipyS ?? Infinity, out.seconds);
-          scipyCpuS = Math.min(scipyCpuS ?? Infinity, out.cpuSeconds);
+          const out = JSON.parse(res.stdout.trim().split('\n').pop() as string) as { seconds: number[]; cpuSeconds: number[]; scipy: string };
+          scipyWall.push(...out.seconds);
+          scipyCpu.push(...out.cpuSeconds);
           scipyNote = `scipy ${out.scipy} via ${PYTHON}`;
         } else {
           scipyNote = `skipped: ${PYTHON} could not run scipy (${(res.stderr || res.error?.message || '').trim().split('\n').pop()})`;
-          scipyS = null;
-          scipyCpuS = null;
+          scipyWall.length = 0;
+          scipyCpu.length = 0;
         }
       }
     } finally {
       if (dir) rmSync(dir, { recursive: true, force: true });
     }
 
-    console.log(`${CHANNELS} channels x ${DURATION_S} s x ${RATE_HZ} Hz = ${(total / 1e6).toFixed(2)} M samples; best of ${ROUNDS} rounds x ${REPEATS} runs, alternating with scipy; band-pass ${settings.bandPass.lowHz}-${settings.bandPass.highHz} Hz Butterworth order ${settings.bandPass.order} (${bandPass.length / 6} sections), zero-phase.\n`);
-    console.log('| work | wall time (s) | M samples/s | vs scipy (wall) | CPU time (s) | vs scipy (CPU) |');
-    console.log('|---|---:|---:|---:|---:|---:|');
+    const runs = ROUNDS * REPEATS;
+    const scipyS = scipyWall.length > 0 ? median(scipyWall) : null;
+    const scipyCpuS = scipyCpu.length > 0 ? median(scipyCpu) : null;
+    console.log(
+      `${CHANNELS} channels x ${DURATION_S} s x ${RATE_HZ} Hz = ${(total / 1e6).toFixed(2)} M samples; median (and best) of ${runs} runs ` +
+        `(${ROUNDS} rounds x ${REPEATS}), rounds alternating with scipy; band-pass ${settings.bandPass.lowHz}-${settings.bandPass.highHz} Hz ` +
+        `Butterworth order ${settings.bandPass.order} (${bandPass.length / 6} sections), zero-phase.\n`,
+    );
+    console.log('| work | wall time (s), median | M samples/s | vs scipy (wall) | CPU time (s), median | vs scipy (CPU) | vs scipy, best runs (wall / CPU) |');
+    console.log('|---|---:|---:|---:|---:|---:|---:|');
     const ratio = (ref: number | null, t: number): string => (ref === null ? 'n/a' : `${(ref / t).toFixed(2)}x`);
-    const row = (label: string, key: keyof typeof times): void =>
-      console.log(`| ${label} | ${times[key].toFixed(3)} | ${msps(total, times[key])} | ${ratio(scipyS, times[key])} | ${cpuTimes[key].toFixed(3)} | ${ratio(scipyCpuS, cpuTimes[key])} |`);
+    const bestRatio = (ref: number[], t: number[]): string => (ref.length === 0 ? 'n/a' : `${(Math.min(...ref) / Math.min(...t)).toFixed(2)}x`);
+    const row = (label: string, key: keyof typeof wallRuns): void => {
+      const w = median(wallRuns[key]);
+      const c = median(cpuRuns[key]);
+      console.log(
+        `| ${label} | ${w.toFixed(3)} | ${msps(total, w)} | ${ratio(scipyS, w)} | ${c.toFixed(3)} | ${ratio(scipyCpuS, c)} | ` +
+          `${bestRatio(scipyWall, wallRuns[key])} / ${bestRatio(scipyCpu, cpuRuns[key])} |`,
+      );
+    };
     if (scipyS !== null && scipyCpuS !== null) {
-      console.log(`| scipy.signal.sosfiltfilt, band-pass only (${scipyNote}) | ${scipyS.toFixed(3)} | ${msps(total, scipyS)} | 1.00x | ${scipyCpuS.toFixed(3)} | 1.00x |`);
+      console.log(`| scipy.signal.sosfiltfilt, band-pass only (${scipyNote}) | ${scipyS.toFixed(3)} | ${msps(total, scipyS)} | 1.00x | ${scipyCpuS.toFixed(3)} | 1.00x | 1.00x / 1.00x |`);
     }
     row('Forecatch sosFiltFilt, band-pass only', 'filt');
     row('Forecatch conditionEmg (offset, band-pass, rectify, 10 Hz envelope)', 'chain');
     row(`Forecatch detectOnset, ${DEFAULT_ONSET_SETTINGS.method} (conditions the span itself)`, 'detect');
     row('Forecatch conditionEmg + detectOnset on its output (the whole chain)', 'both');
-    if (scipyS === null) console.log(`\nscipy comparison ${scipyNote}.`);
+    if (scipyS === null || scipyCpuS === null) console.log(`\nscipy comparison ${scipyNote}.`);
     else {
-      const wallOk = scipyS / times.both >= 1;
-      const cpuOk = scipyCpuS !== null && scipyCpuS / cpuTimes.both >= 1;
+      const wallOk = scipyS / median(wallRuns.both) >= 1;
+      const cpuOk = scipyCpuS / median(cpuRuns.both) >= 1;
       console.log(
-        `\nRatio = scipy time / Forecatch time (above 1: Forecatch faster); wall time from performance.now() and time.perf_counter(), ` +
+        `\nRatio = scipy time / Forecatch time (above 1: Forecatch faster), medians unless stated; wall time from performance.now() and time.perf_counter(), ` +
           `CPU time from process.cpuUsage() and time.process_time() (less sensitive to other load on the machine). ` +
-          `Target, whole chain at least as fast as scipy's sosfiltfilt: wall ${wallOk ? 'met' : 'NOT met'}, CPU ${cpuOk ? 'met' : 'NOT met'}.`,
+          `Target, whole chain at least as fast as scipy's sosfiltfilt (medians): wall ${wallOk ? 'met' : 'NOT met'}, CPU ${cpuOk ? 'met' : 'NOT met'}.`,
       );
     }
     if (sink === 0.123456789) console.log('');

@@ -20,6 +20,36 @@ export interface SpanQuality {
  * @returns what was found
  */
 export function checkSpanQuality(raw: Float64Array | Float32Array, from: number, to: number, saturationLevel: number | null): SpanQuality {
+  // Common case first, without data-dependent branches: Math.min/max carry any NaN or infinity into lo/hi, and
+  // with no two equal neighbours there is no run of 3 equal samples. Otherwise the full pass below decides.
+  let lo = Infinity;
+  let hi = -Infinity;
+  let equalPairs = 0;
+  let before = NaN;
+  for (let i = from; i < to; i++) {
+    const v = raw[i];
+    if (v === before) equalPairs++;
+    before = v;
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  if (equalPairs === 0 && lo - lo === 0 && hi - hi === 0) {
+    return { nanCount: 0, clipped: saturatedSpan(raw, from, to, saturationLevel), constant: !(hi > lo) };
+  }
+  return fullSpanQuality(raw, from, to, saturationLevel);
+}
+
+/** Whether any sample of raw[from..to) is at or beyond the saturation level (false when it is null). */
+function saturatedSpan(raw: Float64Array | Float32Array, from: number, to: number, saturationLevel: number | null): boolean {
+  let saturated = false;
+  if (saturationLevel !== null) {
+    for (let i = from; i < to && !saturated; i++) saturated = Math.abs(raw[i]) >= saturationLevel;
+  }
+  return saturated;
+}
+
+/** checkSpanQuality's full pass: NaN count, extremes, runs of equal samples. */
+function fullSpanQuality(raw: Float64Array | Float32Array, from: number, to: number, saturationLevel: number | null): SpanQuality {
   let nanCount = 0;
   let lo = Infinity;
   let hi = -Infinity;
@@ -48,10 +78,7 @@ export function checkSpanQuality(raw: Float64Array | Float32Array, from: number,
       prev = NaN;
     }
   }
-  let saturated = false;
-  if (saturationLevel !== null) {
-    for (let i = from; i < to && !saturated; i++) saturated = Math.abs(raw[i]) >= saturationLevel;
-  }
+  const saturated = saturatedSpan(raw, from, to, saturationLevel);
   const constant = !(hi > lo);
   const clipped = saturated || (!constant && (runHi === hi || runLo === lo));
   return { nanCount, clipped, constant };
