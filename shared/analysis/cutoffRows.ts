@@ -1,5 +1,4 @@
 import type { CutoffRule, OnsetJournalLike, PreparedTrial, StudySettings } from './types';
-import { stateAtTime, valueAtTime } from './stateAtTime';
 import { journalOnset } from './journalOnset';
 
 /**
@@ -81,11 +80,10 @@ export function buildCutoffRows(prepared: readonly PreparedTrial[], settings: St
   return rows;
 }
 
-const scratchState = new Float64Array(3);
-const scratchCov = new Float64Array(9);
-
 /**
- * Fills the cutoff instant, the state there and the filtered acceleration for every row.
+ * Fills the cutoff instant, the state there and the filtered acceleration for every row. One search per
+ * row finds the bracketing samples; the chosen state, the filtered state and the target height are
+ * interpolated there with the same weights and boundary rules as stateAtTime and valueAtTime.
  *
  * @param rows - rows from {@link buildCutoffRows} (modified in place)
  * @param prepared - the same prepared trials
@@ -93,6 +91,8 @@ const scratchCov = new Float64Array(9);
  * @param rule - information cutoff rule
  */
 export function fillCutoffStates(rows: CutoffRows, prepared: readonly PreparedTrial[], source: StudySettings['stateSource'], rule: CutoffRule): void {
+  const state = rows.state;
+  const cov = rows.cov;
   for (let r = 0; r < rows.n; r++) {
     const p = prepared[rows.trialIndex[r]];
     const onset = rows.onsetS[r];
@@ -102,31 +102,51 @@ export function fillCutoffStates(rows: CutoffRows, prepared: readonly PreparedTr
     else if (rule.kind === 'after-release') cutoff = release + rule.afterMs / 1000;
     else cutoff = onset;
     rows.cutoffS[r] = cutoff;
-    let ok =
+    const times = p.timesS;
+    const T = times.length;
+    const ok =
       !p.trial.excluded &&
       Number.isFinite(onset) &&
       Number.isFinite(release) &&
       Number.isFinite(rows.contactS[r]) &&
-      Number.isFinite(cutoff);
-    if (ok) {
-      const st = source === 'filtered' ? p.filteredState : p.smoothedState;
-      const cv = source === 'filtered' ? p.filteredCov : p.smoothedCov;
-      ok = stateAtTime(p.timesS, st, cv, cutoff, scratchState, scratchCov);
-      if (ok) {
-        rows.state.set(scratchState, r * 3);
-        rows.cov.set(scratchCov, r * 9);
-        ok = stateAtTime(p.timesS, p.filteredState, p.filteredCov, cutoff, scratchState, scratchCov);
-        rows.accFilt[r] = scratchState[2];
-        rows.accFiltVar[r] = scratchCov[8];
-        rows.targetM[r] = valueAtTime(p.timesS, p.targetHeightM, cutoff);
-      }
-    }
+      Number.isFinite(cutoff) &&
+      T > 0 &&
+      cutoff >= times[0] &&
+      cutoff <= times[T - 1];
     rows.base[r] = ok ? 1 : 0;
     if (!ok) {
-      rows.state.fill(NaN, r * 3, r * 3 + 3);
+      state[r * 3] = state[r * 3 + 1] = state[r * 3 + 2] = NaN;
       rows.accFilt[r] = NaN;
       rows.accFiltVar[r] = NaN;
       rows.targetM[r] = NaN;
+      continue;
+    }
+    // last sample at or before the cutoff (binary search, as stateAtTime)
+    let lo = 0;
+    let hi = T - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (times[mid] <= cutoff) lo = mid;
+      else hi = mid;
+    }
+    const span = times[hi] - times[lo];
+    const w = span > 0 ? (cutoff - times[lo]) / span : 0;
+    const w0 = 1 - w;
+    const st = source === 'filtered' ? p.filteredState : p.smoothedState;
+    const cv = source === 'filtered' ? p.filteredCov : p.smoothedCov;
+    for (let i = 0; i < 3; i++) state[r * 3 + i] = w0 * st[lo * 3 + i] + w * st[hi * 3 + i];
+    for (let i = 0; i < 9; i++) cov[r * 9 + i] = w0 * cv[lo * 9 + i] + w * cv[hi * 9 + i];
+    const fs = p.filteredState;
+    const fc = p.filteredCov;
+    rows.accFilt[r] = w0 * fs[lo * 3 + 2] + w * fs[hi * 3 + 2];
+    rows.accFiltVar[r] = w0 * fc[lo * 9 + 8] + w * fc[hi * 9 + 8];
+    // target height with valueAtTime's rules: end values at and beyond the ends
+    const tg = p.targetHeightM;
+    if (cutoff <= times[0]) rows.targetM[r] = tg[0];
+    else if (cutoff >= times[T - 1]) rows.targetM[r] = tg[T - 1];
+    else {
+      const wt = (cutoff - times[lo]) / (times[hi] - times[lo]);
+      rows.targetM[r] = (1 - wt) * tg[lo] + wt * tg[hi];
     }
   }
 }

@@ -26,43 +26,64 @@ export interface RowGroup {
  * @returns groups in a stable order (subjects and conditions sorted, `all` last)
  */
 export function buildRowGroups(rows: CutoffRows, prepared: readonly PreparedTrial[], muscles: readonly string[], usable: Uint8Array): RowGroup[] {
-  const bySubjectCond = new Map<string, number[]>();
-  const subjects = new Set<string>();
-  const conditions = new Set<string>();
-  const key = (s: string, c: string, m: number): string => `${s}\u0000${c}\u0000${m}`;
+  // subjects and conditions present among the usable rows, sorted, and each row's codes
+  const subjectSet = new Set<string>();
+  const conditionSet = new Set<string>();
   for (let r = 0; r < rows.n; r++) {
     if (!usable[r]) continue;
     const t = prepared[rows.trialIndex[r]].trial;
-    subjects.add(t.subject);
-    conditions.add(t.condition);
-    for (const c of [t.condition, ALL]) {
-      const k = key(t.subject, c, rows.muscleIndex[r]);
-      let list = bySubjectCond.get(k);
-      if (!list) bySubjectCond.set(k, (list = []));
-      list.push(r);
-    }
+    subjectSet.add(t.subject);
+    conditionSet.add(t.condition);
   }
-  const subj = [...subjects].sort();
-  const conds = [...[...conditions].sort(), ALL];
+  const subj = [...subjectSet].sort();
+  const condNames = [...conditionSet].sort();
+  const S = subj.length;
+  const C = condNames.length;
+  const M = muscles.length;
+  const subjectCode = new Map(subj.map((x, i) => [x, i]));
+  const conditionCode = new Map(condNames.map((x, i) => [x, i]));
+  // cell (m, c, s) with c = C for `all`: counts, then row lists in row order
+  const cells = M * (C + 1) * S;
+  const cell = new Int32Array(rows.n).fill(-1);
+  const count = new Int32Array(cells);
+  for (let r = 0; r < rows.n; r++) {
+    if (!usable[r]) continue;
+    const t = prepared[rows.trialIndex[r]].trial;
+    const base = rows.muscleIndex[r] * (C + 1);
+    const s = subjectCode.get(t.subject)!;
+    cell[r] = (base + conditionCode.get(t.condition)!) * S + s;
+    count[cell[r]]++;
+    count[(base + C) * S + s]++;
+  }
+  const lists = Array.from(count, (n) => new Int32Array(n));
+  const fill = new Int32Array(cells);
+  for (let r = 0; r < rows.n; r++) {
+    const k = cell[r];
+    if (k < 0) continue;
+    lists[k][fill[k]++] = r;
+    const s = k % S;
+    const kAll = (rows.muscleIndex[r] * (C + 1) + C) * S + s;
+    lists[kAll][fill[kAll]++] = r;
+  }
   const out: RowGroup[] = [];
-  for (let m = 0; m < muscles.length; m++) {
-    for (const c of conds) {
+  for (let m = 0; m < M; m++) {
+    for (let c = 0; c <= C; c++) {
+      const condition = c === C ? ALL : condNames[c];
       const pooled: Int32Array[] = [];
-      for (const s of subj) {
-        const list = bySubjectCond.get(key(s, c, m));
-        if (!list || list.length === 0) continue;
-        const idx = Int32Array.from(list);
+      for (let s = 0; s < S; s++) {
+        const idx = lists[(m * (C + 1) + c) * S + s];
+        if (idx.length === 0) continue;
         pooled.push(idx);
-        out.push({ subject: s, condition: c, muscle: muscles[m], strata: [idx], rows: idx });
+        out.push({ subject: subj[s], condition, muscle: muscles[m], strata: [idx], rows: idx });
       }
-      if (pooled.length > 0 && subj.length > 1) {
-        const all = new Int32Array(pooled.reduce((a, s) => a + s.length, 0));
+      if (pooled.length > 0 && S > 1) {
+        const all = new Int32Array(pooled.reduce((a, x) => a + x.length, 0));
         let o = 0;
-        for (const s of pooled) {
-          all.set(s, o);
-          o += s.length;
+        for (const x of pooled) {
+          all.set(x, o);
+          o += x.length;
         }
-        out.push({ subject: ALL, condition: c, muscle: muscles[m], strata: pooled, rows: all });
+        out.push({ subject: ALL, condition, muscle: muscles[m], strata: pooled, rows: all });
       }
     }
   }

@@ -2,7 +2,7 @@ import type { CutoffRows } from './cutoffRows';
 import type { RowGroup } from './groups';
 import type { InternalGravityProfile, PreparedTrial } from './types';
 import { arrivalTimeS } from './arrivalTime';
-import { profileInterval, stratifiedMaxLogLik } from './thresholdModel';
+import { profileInterval, SPREAD_FLOOR_S } from './thresholdModel';
 import { G0_MPS2, onsetJacobian } from './hypothesisTtc';
 
 /** ttc and Jacobian |d ttc / d onset| of every row at every grid value, rows x grid row-major. */
@@ -75,24 +75,25 @@ export function internalGravityProfiles(groups: readonly RowGroup[], gridTtc: Gr
   const ljGrid = gridTtc.jac;
   const G = gridMps2.length;
   const out: InternalGravityProfile[] = [];
+  // rows finite at every grid value (the same for every group they belong to)
+  const complete = new Uint8Array(ttcGrid.length / G);
+  for (let r = 0; r < complete.length; r++) {
+    let ok = true;
+    for (let g = 0; g < G && ok; g++) ok = Number.isFinite(ttcGrid[r * G + g]) && Number.isFinite(ljGrid[r * G + g]);
+    complete[r] = ok ? 1 : 0;
+  }
   for (const grp of groups) {
-    const strata = grp.strata.map((s) => s.filter((r) => {
-      for (let g = 0; g < G; g++) if (!(Number.isFinite(ttcGrid[r * G + g]) && Number.isFinite(ljGrid[r * G + g]))) return false;
-      return true;
-    }));
+    const strata = grp.strata.map((s) => s.filter((r) => complete[r] === 1));
     const n = strata.reduce((a, s) => a + s.length, 0);
     const ll = new Float64Array(G);
-    // values for one grid column, indexed by row
-    const values = new Float64Array(ttcGrid.length / G);
-    const jac = new Float64Array(ttcGrid.length / G);
     for (let g = 0; g < G; g++) {
-      for (const s of strata) {
-        for (let i = 0; i < s.length; i++) {
-          values[s[i]] = ttcGrid[s[i] * G + g];
-          jac[s[i]] = ljGrid[s[i] * G + g];
-        }
+      if (n < 3) {
+        ll[g] = NaN;
+        continue;
       }
-      ll[g] = n >= 3 ? stratifiedMaxLogLik(values, strata, jac) : NaN;
+      let sum = 0;
+      for (const s of strata) sum += gridColumnMaxLogLik(ttcGrid, ljGrid, s, G, g);
+      ll[g] = sum;
     }
     const iv = n >= 3 ? profileInterval(gridMps2, ll) : { best: NaN, lo: NaN, hi: NaN };
     out.push({
@@ -108,4 +109,30 @@ export function internalGravityProfiles(groups: readonly RowGroup[], gridTtc: Gr
     });
   }
   return out;
+}
+
+/**
+ * thresholdModel.ts gaussianMaxLogLik (same sums in the same order) of grid column g over one stratum's
+ * rows, read in place from the rows x grid matrices (0 for an empty stratum, as stratifiedMaxLogLik).
+ */
+function gridColumnMaxLogLik(ttcGrid: Float64Array, ljGrid: Float64Array, idx: Int32Array, G: number, g: number): number {
+  const count = idx.length;
+  if (count === 0) return 0;
+  let sw = 0;
+  let swx = 0;
+  for (let i = 0; i < count; i++) {
+    const q = idx[i] * G + g;
+    const w = 1 / (ljGrid[q] * ljGrid[q]);
+    sw += w;
+    swx += w * ttcGrid[q];
+  }
+  const mean = swx / sw;
+  let ss = 0;
+  for (let i = 0; i < count; i++) {
+    const q = idx[i] * G + g;
+    const d = ttcGrid[q] - mean;
+    ss += (d * d) / (ljGrid[q] * ljGrid[q]);
+  }
+  const v = Math.max(ss / count, SPREAD_FLOOR_S * SPREAD_FLOOR_S);
+  return -0.5 * count * (Math.log(2 * Math.PI * v) + 1);
 }

@@ -3,7 +3,7 @@ import type { RowGroup } from './groups';
 import type { AnalysisHypothesis, PreparedTrial, PriorWidthFit } from './types';
 import { arrivalTimeS } from './arrivalTime';
 import { bayesPriorWeight, G0_MPS2, onsetJacobian } from './hypothesisTtc';
-import { profileInterval, stratifiedMaxLogLik } from './thresholdModel';
+import { profileInterval, SPREAD_FLOOR_S } from './thresholdModel';
 
 /**
  * Log-spaced grid of prior widths.
@@ -51,14 +51,16 @@ export function fitPriorWidths(
   const gPrior = h.priorGMps2 ?? G0_MPS2;
   const sigmaByRow = new Float64Array(rows.n).fill(NaN);
   const fits: PriorWidthFit[] = [];
-  const values = new Float64Array(rows.n);
-  const jac = new Float64Array(rows.n);
   const logGrid = grid.map(Math.log);
+  const S = grid.length;
+  let most = 0;
+  for (const grp of subjectGroups) most = Math.max(most, grp.rows.length);
+  // ttc and Jacobian of each group row (row-major, S per row), reused across groups
+  const ttc = new Float64Array(most * S);
+  const lj = new Float64Array(most * S);
+  const keep = new Int32Array(most);
   for (const grp of subjectGroups) {
-    const S = grid.length;
-    const ttc = new Float64Array(grp.rows.length * S);
-    const lj = new Float64Array(grp.rows.length * S);
-    const keep: number[] = [];
+    let kept = 0;
     for (let i = 0; i < grp.rows.length; i++) {
       const r = grp.rows[i];
       const p = rows.state[r * 3];
@@ -66,28 +68,25 @@ export function fitPriorWidths(
       const off = rows.cutoffS[r] - rows.onsetS[r];
       const fitted = prepared[rows.trialIndex[r]].fittedAccMps2;
       const aSeen = Number.isFinite(fitted) ? fitted : rows.state[r * 3 + 2];
+      const vf = rows.accFiltVar[r];
+      const af = rows.accFilt[r];
+      const target = rows.targetM[r];
       let ok = true;
       for (let s = 0; s < S; s++) {
-        const w = bayesPriorWeight(rows.accFiltVar[r], grid[s]);
-        const a = w * -gPrior + (1 - w) * rows.accFilt[r];
-        const tau = arrivalTimeS(p, v, a, rows.targetM[r]);
+        const w = bayesPriorWeight(vf, grid[s]);
+        const a = w * -gPrior + (1 - w) * af;
+        const tau = arrivalTimeS(p, v, a, target);
         const t = off + tau;
+        const j = cutoffMovesWithOnset ? onsetJacobian(v, aSeen, a, tau) : 1;
         ttc[i * S + s] = t;
-        lj[i * S + s] = cutoffMovesWithOnset ? onsetJacobian(v, aSeen, a, tau) : 1;
-        if (!Number.isFinite(t) || !Number.isFinite(lj[i * S + s])) ok = false;
+        lj[i * S + s] = j;
+        if (!Number.isFinite(t) || !Number.isFinite(j)) ok = false;
       }
-      if (ok) keep.push(i);
+      if (ok) keep[kept++] = i;
     }
-    const stratum = Int32Array.from(keep.map((i) => grp.rows[i]));
     const ll = new Float64Array(S);
-    for (let s = 0; s < S; s++) {
-      for (const i of keep) {
-        values[grp.rows[i]] = ttc[i * S + s];
-        jac[grp.rows[i]] = lj[i * S + s];
-      }
-      ll[s] = stratum.length >= 3 ? stratifiedMaxLogLik(values, [stratum], jac) : NaN;
-    }
-    const iv = stratum.length >= 3 ? profileInterval(logGrid, ll) : { best: NaN, lo: NaN, hi: NaN };
+    for (let s = 0; s < S; s++) ll[s] = kept >= 3 ? keptMaxLogLik(ttc, lj, keep, kept, S, s) : NaN;
+    const iv = kept >= 3 ? profileInterval(logGrid, ll) : { best: NaN, lo: NaN, hi: NaN };
     const best = Math.exp(iv.best);
     const weightSum = new Map<string, { s: number; n: number }>();
     for (const r of grp.rows) {
@@ -115,4 +114,28 @@ export function fitPriorWidths(
     });
   }
   return { fits, sigmaByRow };
+}
+
+/**
+ * thresholdModel.ts gaussianMaxLogLik (same sums in the same order) of column s of the row-major
+ * ttc/Jacobian block, over the kept rows.
+ */
+function keptMaxLogLik(ttc: Float64Array, lj: Float64Array, keep: Int32Array, count: number, S: number, s: number): number {
+  let sw = 0;
+  let swx = 0;
+  for (let k = 0; k < count; k++) {
+    const q = keep[k] * S + s;
+    const w = 1 / (lj[q] * lj[q]);
+    sw += w;
+    swx += w * ttc[q];
+  }
+  const mean = swx / sw;
+  let ss = 0;
+  for (let k = 0; k < count; k++) {
+    const q = keep[k] * S + s;
+    const d = ttc[q] - mean;
+    ss += (d * d) / (lj[q] * lj[q]);
+  }
+  const v = Math.max(ss / count, SPREAD_FLOOR_S * SPREAD_FLOOR_S);
+  return -0.5 * count * (Math.log(2 * Math.PI * v) + 1);
 }
