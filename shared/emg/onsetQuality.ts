@@ -22,13 +22,14 @@ export interface SpanQuality {
 export function checkSpanQuality(raw: Float64Array | Float32Array, from: number, to: number, saturationLevel: number | null): SpanQuality {
   // Common case first, without data-dependent branches: Math.min/max carry any NaN or infinity into lo/hi, and
   // with no two equal neighbours there is no run of 3 equal samples. Otherwise the full pass below decides.
-  let lo = Infinity;
-  let hi = -Infinity;
+  if (!(to > from)) return fullSpanQuality(raw, from, to, saturationLevel);
+  let before = raw[from];
+  let lo = before;
+  let hi = before;
   let equalPairs = 0;
-  let before = NaN;
-  for (let i = from; i < to; i++) {
+  for (let i = from + 1; i < to; i++) {
     const v = raw[i];
-    if (v === before) equalPairs++;
+    equalPairs += v === before ? 1 : 0;
     before = v;
     lo = Math.min(lo, v);
     hi = Math.max(hi, v);
