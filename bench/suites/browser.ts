@@ -152,17 +152,24 @@ async function run(): Promise<void> {
     // zoom by a mouse drag across the velocity row (plotly's zoom box) -> relayout -> re-decimation -> repaint
     await page.evaluate(() => {
       const w = window as unknown as { __benchUp?: number; __benchPaint?: Promise<number> };
-      const before = document.body.dataset.trialPainted;
+      // from the mouse-up that ends the zoom box to the next drawn trial figure
       w.__benchPaint = new Promise<number>((resolve) => {
-        const obs = new MutationObserver(() => {
-          if (document.body.dataset.trialPainted !== before) {
-            obs.disconnect();
-            requestAnimationFrame(() => resolve(performance.now()));
-          }
-        });
-        obs.observe(document.body, { attributes: true, attributeFilter: ['data-trial-painted'] });
+        window.addEventListener(
+          'mouseup',
+          () => {
+            w.__benchUp = performance.now();
+            const before = document.body.dataset.trialPainted;
+            const obs = new MutationObserver(() => {
+              if (document.body.dataset.trialPainted !== before) {
+                obs.disconnect();
+                requestAnimationFrame(() => resolve(performance.now()));
+              }
+            });
+            obs.observe(document.body, { attributes: true, attributeFilter: ['data-trial-painted'] });
+          },
+          { capture: true, once: true },
+        );
       });
-      window.addEventListener('mouseup', () => (w.__benchUp = performance.now()), { capture: true, once: true });
     });
     const box = (await page.locator('[data-plot-id="trial-s1-t001"] .nsewdrag').first().boundingBox())!;
     const yMid = box.y + box.height * 0.27; // the velocity row

@@ -22,6 +22,8 @@ export interface PlotProps {
   onRelayout?: (update: Record<string, unknown>, el: PlotlyHTMLElement) => void;
   /** Called after each draw (used to time repaints). */
   onDrawn?: (el: PlotlyHTMLElement) => void;
+  /** Secondary figure: drawn after the next frame has been painted, so the view's main figure shows first. */
+  deferred?: boolean;
 }
 
 /** Applies the theme's neutral colours to a layout (axes included). */
@@ -62,23 +64,33 @@ export function Plot(props: PlotProps) {
     if (!el) return;
     let cancelled = false;
     const onDrawn = props.onDrawn; // the callback of the render whose data is drawn here
-    void loadPlotly().then((Plotly) => Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
-      displaylogo: false,
-      responsive: false,
-      modeBarButtonsToRemove: ['sendDataToCloud', 'lasso2d', 'select2d'],
-      toImageButtonOptions: { filename: props.plotId },
-      ...props.config,
-    })).then((gd) => {
+    const draw = () => {
       if (cancelled) return;
-      gd.removeAllListeners('plotly_click');
-      gd.removeAllListeners('plotly_relayout');
-      gd.on('plotly_click', (ev: { points: any[] }) => handlers.current.onClick?.(ev.points));
-      gd.on('plotly_relayout', (ev: Record<string, unknown>) => handlers.current.onRelayout?.(ev, gd));
-      onDrawn?.(gd);
-    });
+      void loadPlotly().then((Plotly) => Plotly.react(el, props.data, themedLayout({ autosize: true, ...props.layout }, props.theme), {
+        displaylogo: false,
+        responsive: false,
+        modeBarButtonsToRemove: ['sendDataToCloud', 'lasso2d', 'select2d'],
+        toImageButtonOptions: { filename: props.plotId },
+        ...props.config,
+      })).then((gd) => {
+        if (cancelled) return;
+        gd.removeAllListeners('plotly_click');
+        gd.removeAllListeners('plotly_relayout');
+        gd.on('plotly_click', (ev: { points: any[] }) => handlers.current.onClick?.(ev.points));
+        gd.on('plotly_relayout', (ev: Record<string, unknown>) => handlers.current.onRelayout?.(ev, gd));
+        onDrawn?.(gd);
+      });
+    };
+    let frame = 0;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    if (props.deferred) frame = requestAnimationFrame(() => (timer = setTimeout(draw, 0)));
+    else draw();
     return () => {
       cancelled = true;
+      cancelAnimationFrame(frame);
+      if (timer) clearTimeout(timer);
     };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [props.data, props.layout, props.theme, props.config]);
 
   return <div ref={ref} className={props.className ?? 'plot'} role="img" aria-label={props.label} data-plot-id={props.plotId} />;

@@ -246,15 +246,15 @@ export function ComparisonView(props: ComparisonViewProps) {
       <div className="two-col">
         <div>
           <h3>Internal gravity (maximum likelihood, 95% interval)</h3>
-          <Plot plotId="internal-gravity" label="Internal gravity per subject and condition" data={gravityFigure.data} layout={gravityFigure.layout} theme={theme} />
-          <Plot plotId="internal-gravity-profile" label="Profile likelihood of internal gravity" data={profileCurves.data} layout={profileCurves.layout} theme={theme} />
+          <Plot deferred plotId="internal-gravity" label="Internal gravity per subject and condition" data={gravityFigure.data} layout={gravityFigure.layout} theme={theme} />
+          <Plot deferred plotId="internal-gravity-profile" label="Profile likelihood of internal gravity" data={profileCurves.data} layout={profileCurves.layout} theme={theme} />
         </div>
         <div>
           <h3>
             Delay sensitivity{delay ? ` (${delay.subject})` : ''}
             {props.refining ? <span className="muted small"> updating…</span> : null}
           </h3>
-          {delay ? <Plot plotId="delay-sensitivity" label="Posterior probability against visuomotor delay" data={delay.data} layout={delay.layout} theme={theme} /> : <p className="muted">No delay sweep in this evaluation.</p>}
+          {delay ? <Plot deferred plotId="delay-sensitivity" label="Posterior probability against visuomotor delay" data={delay.data} layout={delay.layout} theme={theme} /> : <p className="muted">No delay sweep in this evaluation.</p>}
         </div>
       </div>
     </section>
