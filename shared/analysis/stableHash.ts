@@ -1,11 +1,9 @@
 import { canonicalJson } from './canonicalJson';
 
-const FNV_OFFSET_64 = 0xcbf29ce484222325n;
-const FNV_PRIME_64 = 0x100000001b3n;
-const MASK_64 = 0xffffffffffffffffn;
-
 /**
- * 64-bit FNV-1a hash of a string's UTF-8 bytes, as 16 lowercase hex digits.
+ * 64-bit FNV-1a hash of a string's UTF-8 bytes, as 16 lowercase hex digits. The 64-bit state is kept as
+ * two unsigned 32-bit halves (exact in doubles): multiplying by the prime 2^40 + 0x1b3 is
+ * h * 0x1b3 + (h << 40), i.e. low' = low * 0x1b3 mod 2^32 and high' = high * 0x1b3 + carry + (low << 8) mod 2^32.
  *
  * @param text - text to hash
  * @returns 16 hex digits
@@ -14,12 +12,16 @@ const MASK_64 = 0xffffffffffffffffn;
  */
 export function fnv1a64(text: string): string {
   const bytes = new TextEncoder().encode(text);
-  let h = FNV_OFFSET_64;
+  let hi = 0xcbf29ce4;
+  let lo = 0x84222325;
   for (let i = 0; i < bytes.length; i++) {
-    h ^= BigInt(bytes[i]);
-    h = (h * FNV_PRIME_64) & MASK_64;
+    lo = (lo ^ bytes[i]) >>> 0;
+    const a = lo * 0x1b3; // < 2^41, exact
+    const carry = Math.floor(a / 4294967296);
+    hi = (Math.imul(hi, 0x1b3) + carry + (lo << 8)) >>> 0;
+    lo = a >>> 0;
   }
-  return h.toString(16).padStart(16, '0');
+  return hi.toString(16).padStart(8, '0') + lo.toString(16).padStart(8, '0');
 }
 
 /**

@@ -24,3 +24,16 @@ describe('stableHash of settings', () => {
     expect(() => canonicalJson({ x: NaN })).toThrow(TypeError);
   });
 });
+
+describe('fnv1a64 on 32-bit halves equals the 64-bit definition', () => {
+  /** The textbook form on BigInt: h ^= byte; h = h * prime mod 2^64 (FNV draft, section 2). */
+  function fnv1a64BigInt(text: string): string {
+    let h = 0xcbf29ce484222325n;
+    for (const b of new TextEncoder().encode(text)) h = ((h ^ BigInt(b)) * 0x100000001b3n) & 0xffffffffffffffffn;
+    return h.toString(16).padStart(16, '0');
+  }
+  it('for settings JSON, non-ASCII text and every single byte value', () => {
+    const texts = [canonicalJson(defaultStudySettings()), 'Gewöhnung an 0,5 g — ½ g', ...Array.from({ length: 128 }, (_, i) => String.fromCharCode(i))];
+    for (const t of texts) expect(fnv1a64(t)).toBe(fnv1a64BigInt(t));
+  });
+});
