@@ -16,7 +16,7 @@ import { hypothesisAcceleration } from './hypothesisTtc';
 import { predictArrival } from '../ssm/arrival';
 import { summarizeTtc } from './summarizeTtc';
 import { compareGroup } from './compareModels';
-import { gravityGrid, internalGravityProfiles, ttcOverGravityGrid } from './internalGravity';
+import { memoInternalGravity } from './memoInternalGravity';
 import { ALL } from './groups';
 import { stableHash } from './stableHash';
 import { FORECATCH_VERSION } from '../version';
@@ -69,8 +69,7 @@ export function evaluateStudy(
   const summaries: TtcSummary[] = [];
   for (const g of mat.groups) for (let h = 0; h < hyps.length; h++) summaries.push(summarizeTtc(g, hyps[h].id, mat.ttcByHyp[h], durationS));
 
-  const grid = gravityGrid(settings.gravityGrid.points, settings.gravityGrid.maxG);
-  const internalGravity = internalGravityProfiles(mat.groups, ttcOverGravityGrid(rows, prepared, grid, moves), grid);
+  const internalGravity = memoInternalGravity(rows, prepared, mat.groups, settings, moves);
 
   const k = paramsPerStratum(settings);
   const models: ModelComparisonRow[] = [];
