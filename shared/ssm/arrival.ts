@@ -58,7 +58,8 @@ function checkFinite(name: string, v: number): void {
  * @returns the arrival time, its SD and a status; unreachable cases are flagged, never a silent NaN
  * @throws RangeError for non-finite inputs; DimensionMismatchError when cov does not have 9 entries
  * @see Delta method: e.g. Casella & Berger (2002), Statistical Inference, 2nd ed., sec. 5.5.4;
- *   stable quadratic roots: Press et al. (2007), Numerical Recipes, 3rd ed., sec. 5.6
+ *   stable quadratic roots: Press et al. (2007), Numerical Recipes, 3rd ed., sec. 5.6 (section numbers
+ *   from memory)
  */
 export function predictArrival(input: ArrivalInput): ArrivalPrediction {
   const { posM, velMps, accMps2, cov, targetHeightM } = input;

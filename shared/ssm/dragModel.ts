@@ -23,7 +23,8 @@ const MAX_SUBSTEP_S = 0.002;
  * @param opts - axis, noise levels, prior (as for makeAxisModel)
  * @returns the nonlinear model, for {@link extendedKalmanFilter} and {@link extendedRtsSmooth}
  * @throws RangeError for a missing or negative dragPerM, non-finite gravity or bad noise levels
- * @see Taylor (2005), Classical Mechanics, sec. 2.4 (quadratic drag); Särkkä (2013), sec. 5.2 (EKF)
+ * @see Taylor (2005), Classical Mechanics, sec. 2.4 (quadratic drag); Särkkä (2013), Bayesian Filtering
+ *   and Smoothing, sec. 5.2 (EKF) (section numbers from memory)
  */
 export function makeDragAxisModel(spec: HypothesisSpec, opts: AxisModelOptions): NonlinearStateSpaceModel {
   const k = spec.dragPerM;

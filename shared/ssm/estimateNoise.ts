@@ -223,7 +223,7 @@ export function fitNoiseEm(build: NoiseModelBuilder, z: Float64Array, timesS: Fl
  *   the simplex, and 1e-10 on log-parameters), evaluation cap
  * @returns the estimates and the maximised log-likelihood
  * @throws as {@link fitNoiseEm}
- * @see Nelder & Mead (1965), Computer J. 7:308-313; Harvey (1989), Forecasting, Structural Time Series
+ * @see Nelder & Mead (1965), Computer J. 7:308-313; Harvey (1989, chapter from memory), Forecasting, Structural Time Series
  *   Models and the Kalman Filter, ch. 3 (prediction-error decomposition of the likelihood)
  */
 export function fitNoiseMle(build: NoiseModelBuilder, z: Float64Array, timesS: Float64Array, opts: NoiseFitOptions = {}): NoiseFit {

@@ -30,7 +30,7 @@ export interface NonlinearStateSpaceModel extends ObservationPart {
  * @param timesS - sample times, s, strictly increasing
  * @returns the same {@link FilterResult} as the linear filter
  * @throws as {@link kalmanFilter}
- * @see Jazwinski (1970), Stochastic Processes and Filtering Theory, ch. 8; Särkkä (2013), Bayesian
+ * @see (chapter and section numbers from memory) Jazwinski (1970), Stochastic Processes and Filtering Theory, ch. 8; Särkkä (2013), Bayesian
  *   Filtering and Smoothing, sec. 5.2
  */
 export function extendedKalmanFilter(model: NonlinearStateSpaceModel, z: Float64Array, timesS: Float64Array): FilterResult {
@@ -47,7 +47,7 @@ export function extendedKalmanFilter(model: NonlinearStateSpaceModel, z: Float64
  * @param filtered - output of {@link extendedKalmanFilter}
  * @returns smoothed means, covariances and lag-one covariances (of the linearised model)
  * @throws DimensionMismatchError when the result does not fit the model; NotPositiveDefiniteError as rtsSmooth
- * @see Särkkä (2013), Bayesian Filtering and Smoothing, sec. 9.1 (extended RTS smoother)
+ * @see Särkkä (2013), Bayesian Filtering and Smoothing, sec. 9.1 (extended RTS smoother; section from memory)
  */
 export function extendedRtsSmooth(model: NonlinearStateSpaceModel, filtered: FilterResult): SmoothResult {
   const { n, length: T } = filtered;

@@ -94,7 +94,7 @@ export function allocateFilterResult(n: number, m: number, timesS: Float64Array)
  * @throws DimensionMismatchError when array sizes do not match the model
  * @throws NotPositiveDefiniteError when an innovation covariance S is not positive definite
  * @see Kalman (1960), J. Basic Eng. 82:35-45; Joseph form: Bucy & Joseph (1968); Bar-Shalom, Li &
- *   Kirubarajan (2001), Estimation with Applications to Tracking and Navigation, ch. 5
+ *   Kirubarajan (2001), Estimation with Applications to Tracking and Navigation, ch. 5 (chapter from memory)
  */
 export function kalmanFilter(
   model: StateSpaceModel, z: Float64Array, timesS: Float64Array, opts: KalmanFilterOptions = {},

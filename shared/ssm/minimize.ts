@@ -56,7 +56,7 @@ export function nelderMead2(f: (a: number, b: number) => number, a0: number, b0:
  * @param x0 - start
  * @param maxEval - evaluation cap
  * @returns best point, its value and whether the bracket reached 1e-10
- * @see Kiefer (1953), Proc. Amer. Math. Soc. 4:502-506
+ * @see Kiefer (1953), Proc. Amer. Math. Soc. 4:502-506 (pages from memory)
  */
 export function golden1d(f: (x: number) => number, x0: number, maxEval: number) {
   let step = 1;

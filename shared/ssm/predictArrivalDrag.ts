@@ -36,6 +36,7 @@ export interface DragArrivalInput {
  *   within the horizon
  * @throws RangeError for non-finite inputs or a negative drag coefficient; DimensionMismatchError for cov not 2x2
  * @see Taylor (2005), Classical Mechanics, sec. 2.4; delta method: Casella & Berger (2002), sec. 5.5.4
+ *   (section numbers from memory)
  */
 export function predictArrivalDrag(input: DragArrivalInput): ArrivalPrediction {
   const { posM, velMps, cov, targetHeightM } = input;

@@ -59,6 +59,7 @@ export function allocateSmoothResult(n: number, T: number): SmoothResult {
  *   zero prior variance and zero process noise)
  * @see Rauch, Tung & Striebel (1965), AIAA J. 3:1445-1450; lag-one covariance: Shumway & Stoffer
  *   (1982), J. Time Series Anal. 3:253-264, and de Jong (1989), J. Amer. Statist. Assoc. 84:1085-1088
+ *   (journal pages from memory)
  */
 export function rtsSmooth(model: StateSpaceModel, filtered: FilterResult, opts: RtsSmoothOptions = {}): SmoothResult {
   validateModel(model);

@@ -13,7 +13,7 @@ const g0 = STANDARD_GRAVITY_MPS2;
 const opts = { axis: 'vertical' as const, qIntensity: 0.5, measurementVarM2: 1e-6, x0: Float64Array.of(2, 0), P0: Float64Array.of(1e-4, 0, 0, 1e-2) };
 
 describe('drag hypothesis: quadratic air drag, extended Kalman filter', () => {
-  it('propagation from rest matches the closed-form fall with quadratic drag (Taylor 2005, Classical Mechanics, sec. 2.4)', () => {
+  it('propagation from rest matches the closed-form fall with quadratic drag (derivable from dv/dt = -g + k v^2; Taylor 2005, Classical Mechanics, sec. 2.4, from memory)', () => {
     // v(t) = -vt tanh(g t / vt), drop(t) = (vt^2 / g) ln cosh(g t / vt), terminal speed vt = sqrt(g / k)
     const k = 0.02;
     const m = makeDragAxisModel({ id: 'd', kind: 'drag', dragPerM: k }, opts);
@@ -80,7 +80,7 @@ describe('drag hypothesis: quadratic air drag, extended Kalman filter', () => {
 });
 
 describe('predictArrivalDrag: arrival under gravity and quadratic drag by integration', () => {
-  it('from rest, the drop time equals the closed form t = (vt/g) acosh(exp(d g / vt^2)) (Taylor 2005, sec. 2.4)', () => {
+  it('from rest, the drop time equals the closed form t = (vt/g) acosh(exp(d g / vt^2)) (same closed form, Taylor 2005, from memory)', () => {
     const k = 0.03, d = 6;
     const vt = Math.sqrt(g0 / k);
     const a = predictArrivalDrag({ posM: d, velMps: 0, cov: new Float64Array(4), dragPerM: k, targetHeightM: 0 });
