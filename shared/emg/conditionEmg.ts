@@ -112,8 +112,8 @@ export function conditionEmg(
   let sum = finiteSum(signal);
   const finite = sum - sum === 0;
   const mean = finite && settings.removeOffset ? sum / n : 0;
-  // Zero-phase band-pass of a finite Float64Array: the filter's first pass reads signal - mean itself (no copy, no
-  // separate offset pass); the same arithmetic as removing the offset in place and filtering.
+  // Zero-phase band-pass of a finite Float64Array: copy and offset removal in the filter's one loading loop (the
+  // padding is taken from signal - mean directly); the same arithmetic as removing the offset in place and filtering.
   const direct =
     finite && filters.bandPass !== null && settings.zeroPhase && signal instanceof Float64Array && (signal === conditioned || signal.buffer !== conditioned.buffer);
   if (direct) filtFiltFrom(filters.bandPass as Sos, signal as Float64Array, mean, conditioned, defaultPadLength(filters.bandPass as Sos));

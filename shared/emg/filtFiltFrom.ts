@@ -1,6 +1,6 @@
 /**
- * The arithmetic of sosFiltFilt, reading its input from a source array with an offset subtracted, so that
- * neither the copy into the output nor the offset removal needs a pass over memory of its own.
+ * The arithmetic of sosFiltFilt, taking its input from a source array with an offset subtracted: the copy into
+ * the output and the offset removal are one loop, and the odd-extension padding is read from the source.
  */
 import { sosFiltZi } from './sosFilt';
 import { sosFilterInPlace } from './sosKernel';
