@@ -150,3 +150,50 @@ export function fillCutoffStates(rows: CutoffRows, prepared: readonly PreparedTr
     }
   }
 }
+
+/** A copy of the cutoff-dependent columns of a CutoffRows table (what fillCutoffStates writes). */
+export interface CutoffStatesSnapshot {
+  base: Uint8Array;
+  cutoffS: Float64Array;
+  state: Float64Array;
+  cov: Float64Array;
+  accFilt: Float64Array;
+  accFiltVar: Float64Array;
+  targetM: Float64Array;
+}
+
+/**
+ * Copies what {@link fillCutoffStates} wrote, to put it back later without interpolating again.
+ *
+ * @param rows - filled rows
+ * @returns the copy
+ */
+export function snapshotCutoffStates(rows: CutoffRows): CutoffStatesSnapshot {
+  return {
+    base: rows.base.slice(),
+    cutoffS: rows.cutoffS.slice(),
+    state: rows.state.slice(),
+    cov: rows.cov.slice(),
+    accFilt: rows.accFilt.slice(),
+    accFiltVar: rows.accFiltVar.slice(),
+    targetM: rows.targetM.slice(),
+  };
+}
+
+/**
+ * Puts a snapshot back (rows of the same trials, muscles and onsets as when it was taken).
+ *
+ * @param rows - rows to overwrite
+ * @param snap - from {@link snapshotCutoffStates}
+ * @throws RangeError when the snapshot has another row count
+ */
+export function restoreCutoffStates(rows: CutoffRows, snap: CutoffStatesSnapshot): void {
+  if (snap.base.length !== rows.n) throw new RangeError(`restoreCutoffStates: snapshot of ${snap.base.length} rows for ${rows.n} rows`);
+  rows.base.set(snap.base);
+  rows.cutoffS.set(snap.cutoffS);
+  rows.state.set(snap.state);
+  rows.cov.set(snap.cov);
+  rows.accFilt.set(snap.accFilt);
+  rows.accFiltVar.set(snap.accFiltVar);
+  rows.targetM.set(snap.targetM);
+}

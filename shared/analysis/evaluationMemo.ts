@@ -77,10 +77,18 @@ function sameInt32(a: Int32Array, b: ArrayLike<number>, offset = 0): boolean {
  * @param strata - the group's strata of row indices
  * @param seed - bootstrap seed of the group
  * @param replicates - replicate count
- * @returns the group's entries (mutable list; add new ones with {@link rememberBootstrap})
+ * @returns the group's entries (mutable list; add new ones with {@link rememberBootstrap}); a new empty list
+ *   when these strata were not seen (or their bucket was taken by other strata with the same hash)
  */
 export function bootstrapEntries(label: string, strata: readonly Int32Array[], seed: number, replicates: number): BootstrapEntry[] {
-  const key = `${label}\u0000${seed}\u0000${replicates}`;
+  // one bucket per content of the strata, so groups that differ between two hypothesis sets (a row usable
+  // under one set only) keep both versions
+  let hash = 0x811c9dc5;
+  for (const s of strata) {
+    hash = Math.imul(hash ^ s.length, 0x01000193);
+    for (let i = 0; i < s.length; i++) hash = Math.imul(hash ^ s[i], 0x01000193);
+  }
+  const key = `${label}\u0000${seed}\u0000${replicates}\u0000${hash >>> 0}`;
   let bucket = bootstrapPool.get(key);
   let same = !!bucket && bucket.strataLengths.length === strata.length;
   if (bucket && same) {

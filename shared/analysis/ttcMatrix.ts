@@ -4,6 +4,7 @@ import { buildRowGroups, ALL, type RowGroup } from './groups';
 import { ttcUnderHypothesis } from './hypothesisTtc';
 import { fitPriorWidths, priorWidthGrid } from './priorWidth';
 import type { StudySettings } from './types';
+import { canonicalJson } from './canonicalJson';
 
 /** Time-to-contact at onset of every row under every hypothesis, and which rows enter the statistics. */
 export interface TtcMatrix {
@@ -20,6 +21,12 @@ export interface TtcMatrix {
 }
 
 /**
+ * ttc and Jacobian per row of hypotheses that need no fitting, keyed by the hypothesis' canonical JSON:
+ * valid for one filled state of the rows and one cutoff rule (the caller keeps it with those).
+ */
+export type KnownTtc = Map<string, { ttc: Float64Array; jac: Float64Array }>;
+
+/**
  * Computes ttc for all hypotheses, fitting the Bayesian observer's prior width per subject first (on the
  * rows usable under every other hypothesis), then groups the usable rows.
  *
@@ -27,16 +34,34 @@ export interface TtcMatrix {
  * @param prepared - prepared trials
  * @param settings - study settings (hypotheses, prior width grid)
  * @param cutoffMovesWithOnset - false for the `after-release` cutoff rule
+ * @param known - ttc already computed for these rows' states (read and extended; optional)
  * @returns the matrix, usability, fitted prior widths and row groups
  */
-export function computeTtcMatrix(rows: CutoffRows, prepared: readonly PreparedTrial[], settings: StudySettings, cutoffMovesWithOnset: boolean): TtcMatrix {
+export function computeTtcMatrix(
+  rows: CutoffRows,
+  prepared: readonly PreparedTrial[],
+  settings: StudySettings,
+  cutoffMovesWithOnset: boolean,
+  known?: KnownTtc,
+): TtcMatrix {
   const hyps: AnalysisHypothesis[] = settings.hypotheses;
   const muscles = settings.emgChannels.map((c) => c.muscle);
   const ttcByHyp = hyps.map(() => new Float64Array(rows.n));
   const jacByHyp = hyps.map(() => new Float64Array(rows.n));
   const sigmaByHyp: (Float64Array | null)[] = hyps.map(() => null);
   const pre = new Uint8Array(rows.n);
-  for (let h = 0; h < hyps.length; h++) if (hyps[h].kind !== 'bayesian-observer') ttcUnderHypothesis(hyps[h], rows, prepared, null, ttcByHyp[h], jacByHyp[h], cutoffMovesWithOnset);
+  for (let h = 0; h < hyps.length; h++) {
+    if (hyps[h].kind === 'bayesian-observer') continue;
+    const id = known ? canonicalJson(hyps[h]) : '';
+    const hit = known?.get(id);
+    if (hit) {
+      ttcByHyp[h].set(hit.ttc);
+      jacByHyp[h].set(hit.jac);
+      continue;
+    }
+    ttcUnderHypothesis(hyps[h], rows, prepared, null, ttcByHyp[h], jacByHyp[h], cutoffMovesWithOnset);
+    known?.set(id, { ttc: ttcByHyp[h].slice(), jac: jacByHyp[h].slice() });
+  }
   for (let r = 0; r < rows.n; r++) {
     let ok = rows.base[r] === 1;
     for (let h = 0; h < hyps.length && ok; h++) if (hyps[h].kind !== 'bayesian-observer' && !(Number.isFinite(ttcByHyp[h][r]) && Number.isFinite(jacByHyp[h][r]))) ok = false;
