@@ -86,6 +86,11 @@ function fullSpanQuality(raw: Float64Array | Float32Array, from: number, to: num
 }
 
 function blockRms(x: Float64Array, from: number, to: number): number {
+  // Common case, without a branch per sample: the plain sum of squares is NaN exactly when a sample is NaN (the
+  // same additions in the same order as below otherwise).
+  let all = 0;
+  for (let i = from; i < to; i++) all += x[i] * x[i];
+  if (all === all) return to > from ? Math.sqrt(all / (to - from)) : NaN;
   let s = 0;
   let n = 0;
   for (let i = from; i < to; i++) {
