@@ -94,6 +94,24 @@ describe('fast evaluateStudy equals a plain reference computation (1e-9 relative
     compareWithReference(excludedMore, settings, journal);
     compareWithReference(prepared, settings, journal);
   });
+  it('a trial prepared again (new arrays, same id) is not confused with the kept one', () => {
+    compareWithReference(prepared, settings, journal);
+    const moved = prepared.map((p, i) => {
+      if (i !== 2) return p;
+      const smoothedState = p.smoothedState.slice();
+      for (let k = 0; k < smoothedState.length; k += 3) smoothedState[k] += 0.02; // 2 cm higher throughout
+      return { ...p, smoothedState };
+    });
+    compareWithReference(moved, settings, journal);
+    compareWithReference(moved, { ...settings, cutoff: { kind: 'onset-minus-delay', delayMs: 80 } }, journal);
+  });
+  it('hands out copies: changing a result does not change the next evaluation', () => {
+    const first = evaluateStudy(prepared, settings, journal);
+    first.delaySensitivity[0].logLik.fill(0);
+    first.internalGravity[0].logLik.fill(0);
+    expectClose(evaluateStudy(prepared, settings, journal).delaySensitivity, referenceEvaluation(prepared, settings, journal).delaySensitivity, 'sweep');
+    expectClose(evaluateStudy(prepared, settings, journal).internalGravity, referenceEvaluation(prepared, settings, journal).internalGravity, 'gravity');
+  });
   it('the lazy delay sweep equals the reference sweep', () => {
     expectClose(evaluateDelaySensitivity(prepared, settings, journal), referenceEvaluation(prepared, settings, journal).delaySensitivity, 'sweep');
   });
