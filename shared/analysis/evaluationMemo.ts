@@ -45,10 +45,10 @@ interface BootstrapBucket {
   entries: BootstrapEntry[];
 }
 
-/** Entries kept per group: enough for toggling hypotheses of a set of a dozen back and forth. */
-const ENTRIES_PER_GROUP = 24;
-/** Groups kept before the pool is emptied (a few studies' worth of subject x condition x muscle cells). */
-const MAX_GROUPS = 512;
+/** Entries kept per group (hypothesis x values): enough to toggle hypotheses or return to a recent delay. */
+const ENTRIES_PER_GROUP = 16;
+/** Group versions kept before the pool is emptied (bounds memory to some tens of MB at 500 replicates). */
+const MAX_GROUPS = 256;
 
 const bootstrapPool = new Map<string, BootstrapBucket>();
 const memoSlots: MemoSlot<unknown>[] = [];
