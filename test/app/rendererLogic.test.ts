@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { shortcutCommand } from '../../renderer/src/host/shortcuts';
 import { DEFAULT_DEMO, demoFromHash } from '../../renderer/src/worker/demoStudy';
 import { buildTrialRows } from '../../renderer/src/views/trialRows';
-import { appendEdit, makeEdit, redoEdit, undoEdit } from '../../renderer/src/state/journalOps';
+import { DEFAULT_INVALID_REASON, makeEdit } from '../../renderer/src/state/journalOps';
+import { applyEdit, effectiveOnset, emptyJournal, onsetEditProblem, redo, undo } from '../../shared/emg/onsetJournal';
 import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
 import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
 
@@ -38,18 +39,38 @@ describe('demo selection from the page address', () => {
   });
 });
 
-describe('undoable onset journal', () => {
+describe('the window records onset edits through the shared journal (shared/emg/onsetJournal)', () => {
   it('a new edit after an undo drops the undone edit; undo/redo only move the cursor', () => {
-    let j = { edits: [], cursor: 0 } as Parameters<typeof appendEdit>[0];
-    j = appendEdit(j, makeEdit('t1', 'FCR', 'move', 1.0, 1.01));
-    j = appendEdit(j, makeEdit('t1', 'FCR', 'move', 1.01, 1.02));
-    j = undoEdit(j);
+    let j = emptyJournal();
+    j = applyEdit(j, makeEdit('t1', 'FCR', 'move', 1.0, 1.01));
+    j = applyEdit(j, makeEdit('t1', 'FCR', 'move', 1.01, 1.02));
+    j = undo(j);
     expect(j.cursor).toBe(1);
-    expect(redoEdit(j).cursor).toBe(2);
-    j = appendEdit(j, makeEdit('t1', 'FCR', 'invalidate', 1.01, null));
+    expect(redo(j).cursor).toBe(2);
+    j = applyEdit(j, makeEdit('t1', 'FCR', 'invalidate', 1.01, null));
     expect(j.edits.map((e) => e.action)).toEqual(['move', 'invalidate']);
-    expect(redoEdit(j)).toBe(j);
-    expect(undoEdit(undoEdit(undoEdit(j))).cursor).toBe(0);
+    expect(redo(j)).toBe(j);
+    expect(undo(undo(undo(j))).cursor).toBe(0);
+  });
+  it('every edit the views make is valid for the journal: unique ids, invalidate with a reason, no target for restore', () => {
+    const edits = [
+      makeEdit('t1', 'FCR', 'move', 1.0, 1.01),
+      makeEdit('t1', 'FCR', 'invalidate', 1.01, null),
+      makeEdit('t1', 'FCR', 'invalidate', 1.01, null, 'electrode lift-off'),
+      makeEdit('t1', 'FCR', 'restore', null, 0.99),
+    ];
+    for (const e of edits) expect(onsetEditProblem(e)).toBeNull();
+    expect(new Set(edits.map((e) => e.id)).size).toBe(edits.length);
+    expect(edits[1].reason).toBe(DEFAULT_INVALID_REASON);
+    expect(edits[2].reason).toBe('electrode lift-off');
+    expect(edits[3].toS).toBeNull();
+  });
+  it('invalidate then restore gives back the detector onset, shown as unedited', () => {
+    const automatic = { onsetS: 0.95 } as Parameters<typeof effectiveOnset>[0];
+    let j = applyEdit(emptyJournal(), makeEdit('t1', 'FCR', 'invalidate', 0.95, null));
+    expect(effectiveOnset(automatic, j, 't1', 'FCR')).toMatchObject({ onsetS: null, invalid: true, edited: true });
+    j = applyEdit(j, makeEdit('t1', 'FCR', 'restore', null, 0.95));
+    expect(effectiveOnset(automatic, j, 't1', 'FCR')).toMatchObject({ onsetS: 0.95, invalid: false, edited: false });
   });
 });
 

@@ -9,7 +9,8 @@ import type { OnsetJournalLike, StudyEvaluation, StudySettings } from '../../../
 import { createAnalysisClient, type AnalysisClient } from '../worker/analysisClient';
 import type { DemoSpec, Exclusions, StudyOpened } from '../worker/protocol';
 import type { Host, OpenedStudy, UserFile } from '../host/host';
-import { appendEdit, makeEdit, redoEdit, undoEdit } from './journalOps';
+import { applyEdit, redo, undo, type OnsetEdit } from '../../../shared/emg/onsetJournal';
+import { makeEdit } from './journalOps';
 
 export interface Progress {
   done: number;
@@ -172,17 +173,29 @@ export function useStudy(host: Host) {
     [evaluate],
   );
 
+  /** Appends a reviewer's edit through the shared journal (a malformed edit is reported, not thrown). */
+  const record = useCallback(
+    (edit: OnsetEdit) => {
+      try {
+        change({ journal: applyEdit(stateRef.current.journal, edit) });
+      } catch (err) {
+        fail(err);
+      }
+    },
+    [change, fail],
+  );
+
   const actions = useMemo(
     () => ({
       openDemo,
       openStudy,
       addRecordings,
       setSettings: (settings: StudySettings) => change({ settings }),
-      moveOnset: (trialId: string, muscle: string, fromS: number | null, toS: number) => change({ journal: appendEdit(stateRef.current.journal, makeEdit(trialId, muscle, 'move', fromS, toS)) }),
-      invalidateOnset: (trialId: string, muscle: string, fromS: number | null, reason?: string) => change({ journal: appendEdit(stateRef.current.journal, makeEdit(trialId, muscle, 'invalidate', fromS, null, reason)) }),
-      restoreOnset: (trialId: string, muscle: string, fromS: number | null, automaticS: number | null) => change({ journal: appendEdit(stateRef.current.journal, makeEdit(trialId, muscle, 'restore', fromS, automaticS)) }),
-      undo: () => change({ journal: undoEdit(stateRef.current.journal) }),
-      redo: () => change({ journal: redoEdit(stateRef.current.journal) }),
+      moveOnset: (trialId: string, muscle: string, fromS: number | null, toS: number) => record(makeEdit(trialId, muscle, 'move', fromS, toS)),
+      invalidateOnset: (trialId: string, muscle: string, fromS: number | null, reason?: string) => record(makeEdit(trialId, muscle, 'invalidate', fromS, null, reason)),
+      restoreOnset: (trialId: string, muscle: string, fromS: number | null, _automaticS: number | null) => record(makeEdit(trialId, muscle, 'restore', fromS, null)),
+      undo: () => change({ journal: undo(stateRef.current.journal) }),
+      redo: () => change({ journal: redo(stateRef.current.journal) }),
       exclude: (trialId: string, reason: string) => change({ exclusions: { ...stateRef.current.exclusions, [trialId]: reason || 'excluded by the reviewer' } }),
       include: (trialId: string) => {
         const { [trialId]: _drop, ...rest } = stateRef.current.exclusions;
@@ -203,7 +216,7 @@ export function useStudy(host: Host) {
       dismissError: () => setState((s) => ({ ...s, error: null })),
       reportError: fail,
     }),
-    [openDemo, openStudy, addRecordings, change, client, fail],
+    [openDemo, openStudy, addRecordings, change, record, client, fail],
   );
 
   // title and autosave follow the document state
