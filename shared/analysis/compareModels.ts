@@ -2,7 +2,7 @@ import type { RowGroup } from './groups';
 import { SPREAD_FLOOR_S, stratifiedMaxLogLik } from './thresholdModel';
 import { seededRandom } from './seededRandom';
 import { quantileSelect } from './quantileSelect';
-import { bootstrapEntries, findBootstrap, rememberBootstrap } from './evaluationMemo';
+import { bootstrapBucket, findBootstrap, rememberBootstrap } from './evaluationMemo';
 
 /** Comparison of hypotheses in one group. */
 export interface GroupComparison {
@@ -107,7 +107,8 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
  * hypothesis) so a draw reads one contiguous block; a stratum's draws come in one call of the generator.
  * A hypothesis' replicate log-likelihoods depend only on the resamples (strata, seed) and its own values,
  * so with a memo label they are kept between evaluations and reused while those stay equal (toggling
- * other hypotheses leaves them untouched).
+ * other hypotheses leaves them untouched), and so are the resamples themselves (a new delay changes every
+ * value but not which rows are drawn).
  */
 function bootstrapDifferences(
   group: RowGroup,
@@ -128,7 +129,8 @@ function bootstrapDifferences(
   const R = start[S];
   const rows = new Int32Array(R);
   for (let s = 0; s < S; s++) rows.set(strata[s], start[s]);
-  const entries = memoLabel === undefined ? null : bootstrapEntries(memoLabel, strata, seed, replicates);
+  const bucket = memoLabel === undefined ? null : bootstrapBucket(memoLabel, strata, seed, replicates);
+  const entries = bucket ? bucket.entries : null;
   const llByHyp: Float64Array[] = new Array(H);
   const missing: number[] = [];
   for (let h = 0; h < H; h++) {
@@ -137,7 +139,9 @@ function bootstrapDifferences(
     else missing.push(h);
   }
   if (missing.length > 0) {
-    const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, seed);
+    if (bucket && !bucket.draws) bucket.draws = drawResamples(start, replicates, seed);
+    const draws = bucket ? bucket.draws! : drawResamples(start, replicates, seed);
+    const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, draws);
     missing.forEach((h, i) => {
       llByHyp[h] = fresh[i];
       if (entries) rememberBootstrap(entries, { ttc: Float64Array.from(rows, (r) => ttcByHyp[h][r]), jac: Float64Array.from(rows, (r) => jacByHyp[h][r]), ll: fresh[i] });
@@ -206,6 +210,29 @@ function resamplePairLogLik(stats: Float64Array, offsets: Int32Array, m: number,
   outB[b] += -0.5 * m * (LOG2PI + Math.log(u) + 1);
 }
 
+/**
+ * The bootstrap resamples of a group: for each replicate and stratum, m draws with replacement among the
+ * stratum's m rows (seeded; replicate by replicate, stratum by stratum), as positions in the concatenated
+ * strata, replicate-major (replicates x R).
+ */
+function drawResamples(start: Int32Array, replicates: number, seed: number): Int32Array {
+  const S = start.length - 1;
+  const R = start[S];
+  const draws = new Int32Array(replicates * R);
+  const rng = seededRandom(seed);
+  const idx = new Int32Array(R);
+  for (let b = 0; b < replicates; b++) {
+    for (let s = 0; s < S; s++) {
+      const m = start[s + 1] - start[s];
+      if (m === 0) continue;
+      rng.fillInt(idx, m, m);
+      const at = b * R + start[s];
+      for (let i = 0; i < m; i++) draws[at + i] = start[s] + idx[i];
+    }
+  }
+  return draws;
+}
+
 /** Maximised log-likelihood of every bootstrap resample for each of the given hypotheses (see above). */
 function replicateLogLiks(
   strata: readonly Int32Array[],
@@ -213,7 +240,7 @@ function replicateLogLiks(
   ttcByHyp: readonly Float64Array[],
   jacByHyp: readonly Float64Array[],
   replicates: number,
-  seed: number,
+  draws: Int32Array,
 ): Float64Array[] {
   const H = ttcByHyp.length;
   const W = 3 * H;
@@ -245,16 +272,14 @@ function replicateLogLiks(
       }
     }
   }
-  const rng = seededRandom(seed);
   const out = ttcByHyp.map(() => new Float64Array(replicates));
   const idx = new Int32Array(R);
   for (let b = 0; b < replicates; b++) {
     for (let s = 0; s < S; s++) {
       const m = start[s + 1] - start[s];
       if (m === 0) continue;
-      rng.fillInt(idx, m, m);
-      const base = start[s];
-      for (let i = 0; i < m; i++) idx[i] = (base + idx[i]) * W;
+      const from = b * R + start[s];
+      for (let i = 0; i < m; i++) idx[i] = draws[from + i] * W;
       let h = 0;
       for (; h + 1 < H; h += 2) resamplePairLogLik(stats, idx, m, 3 * h, out[h], out[h + 1], b);
       if (h < H) out[h][b] += resampleLogLik(stats, idx, m, 3 * h);

@@ -38,11 +38,17 @@ export interface BootstrapEntry {
   ll: Float64Array;
 }
 
-/** Entries of one group (same strata, seed and replicate count), most recent last. */
-interface BootstrapBucket {
+/** What is kept of one group (same strata, seed and replicate count). */
+export interface BootstrapBucket {
   strataLengths: Int32Array;
   rows: Int32Array;
+  /** Per hypothesis and values, most recent last. */
   entries: BootstrapEntry[];
+  /**
+   * The resamples themselves: for each replicate, the drawn positions (0..R-1 in the concatenated strata),
+   * replicate-major; null until first drawn. They depend only on the strata, seed and replicate count.
+   */
+  draws: Int32Array | null;
 }
 
 /** Entries kept per group (hypothesis x values): enough to toggle hypotheses or return to a recent delay. */
@@ -70,17 +76,16 @@ function sameInt32(a: Int32Array, b: ArrayLike<number>, offset = 0): boolean {
 }
 
 /**
- * The bucket of bootstrap entries of one group (subject x condition x muscle, strata, seed, replicates),
- * emptied when the group's rows changed.
+ * What is kept of one group's bootstrap (subject x condition x muscle, strata, seed, replicates).
  *
  * @param label - subject, condition and muscle of the group
  * @param strata - the group's strata of row indices
  * @param seed - bootstrap seed of the group
  * @param replicates - replicate count
- * @returns the group's entries (mutable list; add new ones with {@link rememberBootstrap}); a new empty list
- *   when these strata were not seen (or their bucket was taken by other strata with the same hash)
+ * @returns the group's bucket (add entries with {@link rememberBootstrap}); a new empty one when these strata
+ *   were not seen (or their bucket was taken by other strata with the same hash)
  */
-export function bootstrapEntries(label: string, strata: readonly Int32Array[], seed: number, replicates: number): BootstrapEntry[] {
+export function bootstrapBucket(label: string, strata: readonly Int32Array[], seed: number, replicates: number): BootstrapBucket {
   // one bucket per content of the strata, so groups that differ between two hypothesis sets (a row usable
   // under one set only) keep both versions
   let hash = 0x811c9dc5;
@@ -106,10 +111,10 @@ export function bootstrapEntries(label: string, strata: readonly Int32Array[], s
       rows.set(strata[s], o);
       o += strata[s].length;
     }
-    bucket = { strataLengths: Int32Array.from(strata, (s) => s.length), rows, entries: [] };
+    bucket = { strataLengths: Int32Array.from(strata, (s) => s.length), rows, entries: [], draws: null };
     bootstrapPool.set(key, bucket);
   }
-  return bucket.entries;
+  return bucket;
 }
 
 /**
