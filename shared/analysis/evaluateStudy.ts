@@ -20,7 +20,7 @@ import { memoInternalGravity } from './memoInternalGravity';
 import { ALL } from './groups';
 import { stableHash } from './stableHash';
 import { FORECATCH_VERSION } from '../version';
-import { paramsPerStratum, sweepDelays } from './delaySweep';
+import { paramsPerStratum, sweepDelays } from './sweepDelays';
 
 /** Options of {@link evaluateStudy}. */
 export interface EvaluateStudyOptions {
