@@ -1,7 +1,7 @@
 import type { RowGroup } from './groups';
 import { SPREAD_FLOOR_S, stratifiedMaxLogLik } from './thresholdModel';
 import { seededRandom } from './seededRandom';
-import { quantileSelect } from './quantileSelect';
+import { quantileSelectPair } from './quantileSelect';
 import { bootstrapBucket, findBootstrap, rememberBootstrap } from './evaluationMemo';
 
 /** Comparison of hypotheses in one group. */
@@ -142,20 +142,37 @@ function bootstrapDifferences(
     if (bucket && !bucket.draws) bucket.draws = drawResamples(start, replicates, seed);
     const draws = bucket ? bucket.draws! : drawResamples(start, replicates, seed);
     const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, draws);
-    missing.forEach((h, i) => {
+    for (let i = 0; i < missing.length; i++) {
+      const h = missing[i];
       llByHyp[h] = fresh[i];
-      if (entries) rememberBootstrap(entries, { ttc: Float64Array.from(rows, (r) => ttcByHyp[h][r]), jac: Float64Array.from(rows, (r) => jacByHyp[h][r]), ll: fresh[i] });
-    });
+      if (!entries) continue;
+      const ttc = new Float64Array(R);
+      const jac = new Float64Array(R);
+      for (let k = 0; k < R; k++) {
+        ttc[k] = ttcByHyp[h][rows[k]];
+        jac[k] = jacByHyp[h][rows[k]];
+      }
+      rememberBootstrap(entries, { ttc, jac, ll: fresh[i] });
+    }
   }
   const d = new Float64Array(replicates);
+  const q = new Float64Array(2);
   const llBest = llByHyp[best];
   for (let h = 0; h < H; h++) {
     const ll = llByHyp[h];
     let finite = true;
     for (let b = 0; b < replicates; b++) finite = Number.isFinite((d[b] = ll[b] - llBest[b])) && finite;
-    if (!finite) d.sort(); // never expected (weights and values are finite): the sorted route orders NaN last
-    dLo[h] = finite ? quantileSelect(d, 0.025) : quantileSorted(d, 0.025);
-    dHi[h] = finite ? quantileSelect(d, 0.975) : quantileSorted(d, 0.975);
+    if (!finite) {
+      d.sort(); // never expected (weights and values are finite): the sorted route orders NaN last
+      dLo[h] = quantileSorted(d, 0.025);
+      dHi[h] = quantileSorted(d, 0.975);
+    } else if (h === best) {
+      dLo[h] = dHi[h] = 0; // every difference is exactly 0
+    } else {
+      quantileSelectPair(d, 0.025, 0.975, q);
+      dLo[h] = q[0];
+      dHi[h] = q[1];
+    }
   }
 }
 

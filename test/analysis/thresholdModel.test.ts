@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { gaussianMaxLogLik, profileInterval, stratifiedMaxLogLik } from '../../shared/analysis/thresholdModel';
 import { compareGroup, quantileSorted } from '../../shared/analysis/compareModels';
-import { quantileSelect } from '../../shared/analysis/quantileSelect';
+import { quantileSelect, quantileSelectPair } from '../../shared/analysis/quantileSelect';
 import { seededRandom } from '../../shared/analysis/seededRandom';
 import type { RowGroup } from '../../shared/analysis/groups';
 
@@ -80,7 +80,7 @@ describe('compareGroup: information criteria, posteriors and bootstrap', () => {
   });
 });
 
-describe('quantileSelect: the type-7 quantile without sorting', () => {
+describe('quantileSelect and quantileSelectPair: the type-7 quantile without sorting', () => {
   it('equals quantileSorted of the sorted values exactly (seeded random values with ties, lengths 1 to 500)', () => {
     const rng = seededRandom(42);
     let checked = 0;
@@ -90,6 +90,9 @@ describe('quantileSelect: the type-7 quantile without sorting', () => {
         const sorted = Float64Array.from(v).sort();
         for (const q of [0, 0.025, 0.25, 0.5, 0.975, 1]) {
           expect(quantileSelect(Float64Array.from(v), q)).toBe(quantileSorted(sorted, q));
+          const pair = new Float64Array(2);
+          quantileSelectPair(Float64Array.from(v), q / 2, q, pair);
+          expect(Array.from(pair)).toEqual([quantileSorted(sorted, q / 2), quantileSorted(sorted, q)]);
           checked++;
         }
       }
