@@ -2,12 +2,12 @@
  * The inner loop of second-order-section filtering, in place, in either direction.
  * Direct form II transposed per section:
  *   y = b0 x + s0;  s0 = b1 x - a1 y + s1;  s1 = b2 x - a2 y.
- * Sections are run four (or two) at a time within one sweep so that their recursions overlap in the CPU; pairs
- * and single sections on long signals are cut in two (four for a single section) with the later pieces started
- * early from rest, so that several independent recursions are in flight (see sosSweeps.ts); results equal the
- * plain recursion to rounding (test/emg/filters.test.ts).
+ * Sections are run two at a time within one sweep so that their recursions overlap in the CPU, and long signals
+ * are cut in two (four for a single section) with the later pieces started early from rest, so that several
+ * independent recursions are in flight (see sosSweeps.ts); results equal the plain recursion to rounding
+ * (test/emg/filters.test.ts).
  */
-import { settleSamples, sweep1, sweep2Split, sweep4 } from './sosSweeps';
+import { settleSamples, sweep1, sweep2Split } from './sosSweeps';
 import type { Sos } from './zpkToSos';
 
 /**
@@ -39,9 +39,8 @@ export function sosFilterInPlace(
   // The input is copied (offset subtracted) into buf first: measured on the benchmark machine, reading src inside
   // the sweeps instead was slower than this one plain copy loop.
   loadShifted(src, shift, buf, start, end);
-  // Groups of four sections run as one chain (sweep4): measured faster on the 4-section EMG band-pass than two
-  // chains in flight (the former sweep4Split), and it is the plain recursion exactly.
-  for (; s + 3 < nSec; s += 4) sweep4(sos, buf, s, first, count, step, state);
+  // Sections run in pairs, two chains in flight on long signals: on the 4-section EMG band-pass this measured
+  // faster than four sections per sweep, with one chain or two (fewer values live at once than fit in registers).
   for (; s + 1 < nSec; s += 2) {
     const warm = Math.max(settleSamples(sos[s * 6 + 4], sos[s * 6 + 5]), settleSamples(sos[s * 6 + 10], sos[s * 6 + 11]));
     if (warm > 0 && count > 4 * warm) sweep2Split(sos, buf, s, first, count, step, state, warm);

@@ -1,5 +1,5 @@
 /**
- * The loops behind sosFilterInPlace: one, two or four second-order sections per sweep over memory, with one,
+ * The loops behind sosFilterInPlace: one or two second-order sections per sweep over memory, with one,
  * two or four independent recursions in flight (see sosKernel.ts). Direct form II transposed unless stated.
  */
 import type { Sos } from './zpkToSos';
@@ -180,50 +180,4 @@ export function settleSamples(a1: number, a2: number): number {
   if (!(r < 0.9999)) return 0;
   if (r === 0) return 4;
   return 2 * Math.ceil(Math.log(1e-18) / Math.log(r)) + 4;
-}
-
-/**
- * Four sections in one sweep: four recursions in flight per sample.
- * @param sos - sections, n x 6 (a0 = 1)
- * @param buf - samples, filtered in place
- * @param s - index of the first section this sweep runs
- * @param first - index of the first sample visited
- * @param count - number of samples
- * @param step - 1 forward, -1 backward
- * @param state - n x 2 section states, read as initial and overwritten with final states
- */
-export function sweep4(sos: Sos, buf: Float64Array, s: number, first: number, count: number, step: number, state: Float64Array): void {
-  const o = s * 6;
-  const b10 = sos[o], b11 = sos[o + 1], b12 = sos[o + 2], a11 = sos[o + 4], a12 = sos[o + 5];
-  const b20 = sos[o + 6], b21 = sos[o + 7], b22 = sos[o + 8], a21 = sos[o + 10], a22 = sos[o + 11];
-  const b30 = sos[o + 12], b31 = sos[o + 13], b32 = sos[o + 14], a31 = sos[o + 16], a32 = sos[o + 17];
-  const b40 = sos[o + 18], b41 = sos[o + 19], b42 = sos[o + 20], a41 = sos[o + 22], a42 = sos[o + 23];
-  const z = s * 2;
-  let s10 = state[z], s11 = state[z + 1], s20 = state[z + 2], s21 = state[z + 3];
-  let s30 = state[z + 4], s31 = state[z + 5], s40 = state[z + 6], s41 = state[z + 7];
-  let i = first;
-  for (let k = 0; k < count; k++, i += step) {
-    const x = buf[i];
-    const y1 = b10 * x + s10;
-    s10 = b11 * x + s11 - a11 * y1;
-    s11 = b12 * x - a12 * y1;
-    const y2 = b20 * y1 + s20;
-    s20 = b21 * y1 + s21 - a21 * y2;
-    s21 = b22 * y1 - a22 * y2;
-    const y3 = b30 * y2 + s30;
-    s30 = b31 * y2 + s31 - a31 * y3;
-    s31 = b32 * y2 - a32 * y3;
-    const y4 = b40 * y3 + s40;
-    s40 = b41 * y3 + s41 - a41 * y4;
-    s41 = b42 * y3 - a42 * y4;
-    buf[i] = y4;
-  }
-  state[z] = s10;
-  state[z + 1] = s11;
-  state[z + 2] = s20;
-  state[z + 3] = s21;
-  state[z + 4] = s30;
-  state[z + 5] = s31;
-  state[z + 6] = s40;
-  state[z + 7] = s41;
 }
