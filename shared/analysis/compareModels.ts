@@ -107,8 +107,8 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
  * hypothesis) so a draw reads one contiguous block; a stratum's draws come in one call of the generator.
  * A hypothesis' replicate log-likelihoods depend only on the resamples (strata, seed) and its own values,
  * so with a memo label they are kept between evaluations and reused while those stay equal (toggling
- * other hypotheses leaves them untouched), and so are the resamples themselves (a new delay changes every
- * value but not which rows are drawn).
+ * other hypotheses leaves them untouched). The resamples themselves are drawn again when needed: a new
+ * delay usually changes which rows are usable, hence the strata, so keeping them did not pay for its memory.
  */
 function bootstrapDifferences(
   group: RowGroup,
@@ -139,9 +139,7 @@ function bootstrapDifferences(
     else missing.push(h);
   }
   if (missing.length > 0) {
-    if (bucket && !bucket.draws) bucket.draws = drawResamples(start, replicates, seed);
-    const draws = bucket ? bucket.draws! : drawResamples(start, replicates, seed);
-    const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, draws);
+    const fresh = replicateLogLiks(strata, start, missing.map((h) => ttcByHyp[h]), missing.map((h) => jacByHyp[h]), replicates, seed);
     for (let i = 0; i < missing.length; i++) {
       const h = missing[i];
       llByHyp[h] = fresh[i];
@@ -227,29 +225,6 @@ function resamplePairLogLik(stats: Float64Array, offsets: Int32Array, m: number,
   outB[b] += -0.5 * m * (LOG2PI + Math.log(u) + 1);
 }
 
-/**
- * The bootstrap resamples of a group: for each replicate and stratum, m draws with replacement among the
- * stratum's m rows (seeded; replicate by replicate, stratum by stratum), as positions in the concatenated
- * strata, replicate-major (replicates x R).
- */
-function drawResamples(start: Int32Array, replicates: number, seed: number): Int32Array {
-  const S = start.length - 1;
-  const R = start[S];
-  const draws = new Int32Array(replicates * R);
-  const rng = seededRandom(seed);
-  const idx = new Int32Array(R);
-  for (let b = 0; b < replicates; b++) {
-    for (let s = 0; s < S; s++) {
-      const m = start[s + 1] - start[s];
-      if (m === 0) continue;
-      rng.fillInt(idx, m, m);
-      const at = b * R + start[s];
-      for (let i = 0; i < m; i++) draws[at + i] = start[s] + idx[i];
-    }
-  }
-  return draws;
-}
-
 /** Maximised log-likelihood of every bootstrap resample for each of the given hypotheses (see above). */
 function replicateLogLiks(
   strata: readonly Int32Array[],
@@ -257,7 +232,7 @@ function replicateLogLiks(
   ttcByHyp: readonly Float64Array[],
   jacByHyp: readonly Float64Array[],
   replicates: number,
-  draws: Int32Array,
+  seed: number,
 ): Float64Array[] {
   const H = ttcByHyp.length;
   const W = 3 * H;
@@ -289,14 +264,16 @@ function replicateLogLiks(
       }
     }
   }
+  const rng = seededRandom(seed);
   const out = ttcByHyp.map(() => new Float64Array(replicates));
   const idx = new Int32Array(R);
   for (let b = 0; b < replicates; b++) {
     for (let s = 0; s < S; s++) {
       const m = start[s + 1] - start[s];
       if (m === 0) continue;
-      const from = b * R + start[s];
-      for (let i = 0; i < m; i++) idx[i] = draws[from + i] * W;
+      rng.fillInt(idx, m, m);
+      const base = start[s];
+      for (let i = 0; i < m; i++) idx[i] = (base + idx[i]) * W;
       let h = 0;
       for (; h + 1 < H; h += 2) resamplePairLogLik(stats, idx, m, 3 * h, out[h], out[h + 1], b);
       if (h < H) out[h][b] += resampleLogLik(stats, idx, m, 3 * h);

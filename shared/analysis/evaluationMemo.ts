@@ -44,16 +44,11 @@ export interface BootstrapBucket {
   rows: Int32Array;
   /** Per hypothesis and values, most recent last. */
   entries: BootstrapEntry[];
-  /**
-   * The resamples themselves: for each replicate, the drawn positions (0..R-1 in the concatenated strata),
-   * replicate-major; null until first drawn. They depend only on the strata, seed and replicate count.
-   */
-  draws: Int32Array | null;
 }
 
 /** Entries kept per group (hypothesis x values): enough to toggle hypotheses or return to a recent delay. */
 const ENTRIES_PER_GROUP = 16;
-/** Group versions kept before the pool is emptied (bounds memory to some tens of MB at 500 replicates). */
+/** Group versions kept, least recently used forgotten first (bounds memory to some tens of MB at 500 replicates). */
 const MAX_GROUPS = 256;
 
 const bootstrapPool = new Map<string, BootstrapBucket>();
@@ -102,8 +97,13 @@ export function bootstrapBucket(label: string, strata: readonly Int32Array[], se
       o += strata[s].length;
     }
   }
-  if (!bucket || !same) {
-    if (bootstrapPool.size >= MAX_GROUPS) bootstrapPool.clear();
+  if (bucket && same) {
+    // most recently used last: the pool forgets the least recently used group version first
+    bootstrapPool.delete(key);
+    bootstrapPool.set(key, bucket);
+  } else {
+    if (bucket) bootstrapPool.delete(key);
+    while (bootstrapPool.size >= MAX_GROUPS) bootstrapPool.delete(bootstrapPool.keys().next().value!);
     let n = 0;
     for (const s of strata) n += s.length;
     const rows = new Int32Array(n);
@@ -111,33 +111,41 @@ export function bootstrapBucket(label: string, strata: readonly Int32Array[], se
       rows.set(strata[s], o);
       o += strata[s].length;
     }
-    bucket = { strataLengths: Int32Array.from(strata, (s) => s.length), rows, entries: [], draws: null };
+    bucket = { strataLengths: Int32Array.from(strata, (s) => s.length), rows, entries: [] };
     bootstrapPool.set(key, bucket);
   }
   return bucket;
 }
 
 /**
- * Finds the entry whose ttc and Jacobian equal the given values at the group's rows.
+ * Finds the entry whose ttc and Jacobian equal the given values at the group's rows (and marks it as
+ * the most recently used).
  *
- * @param entries - the group's entries
+ * @param entries - the group's entries (reordered)
  * @param rows - the group's rows (concatenated strata)
  * @param ttc - ttc per row of the study, s
  * @param jac - Jacobian per row of the study
  * @returns the matching entry or null
  */
-export function findBootstrap(entries: readonly BootstrapEntry[], rows: Int32Array, ttc: Float64Array, jac: Float64Array): BootstrapEntry | null {
+export function findBootstrap(entries: BootstrapEntry[], rows: Int32Array, ttc: Float64Array, jac: Float64Array): BootstrapEntry | null {
   for (let e = entries.length - 1; e >= 0; e--) {
     const entry = entries[e];
     let same = true;
     for (let i = 0; i < rows.length && same; i++) same = Object.is(entry.ttc[i], ttc[rows[i]]) && Object.is(entry.jac[i], jac[rows[i]]);
-    if (same) return entry;
+    if (same) {
+      // most recently used last, so the per-group limit drops the least recently used entry
+      if (e !== entries.length - 1) {
+        (entries as BootstrapEntry[]).splice(e, 1);
+        (entries as BootstrapEntry[]).push(entry);
+      }
+      return entry;
+    }
   }
   return null;
 }
 
 /**
- * Adds an entry to a group's bucket (the oldest dropped past the per-group limit).
+ * Adds an entry to a group's bucket (the least recently used dropped past the per-group limit).
  *
  * @param entries - the group's entries from {@link bootstrapEntries}
  * @param entry - the new entry
