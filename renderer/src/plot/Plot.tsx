@@ -2,7 +2,7 @@
  * A plotly.js chart as a React component: draws with Plotly.react on every change of data or layout,
  * follows the theme, resizes with its box, and forwards clicks and zoom/drag (relayout) events.
  */
-import { useEffect, useRef } from 'react';
+import { useEffect, useLayoutEffect, useRef } from 'react';
 import type { Config, Layout, PlotData, PlotlyHTMLElement } from 'plotly.js-dist-min';
 import { loadPlotly } from './loadPlotly';
 import { THEMES, type ThemeName } from './palette';
@@ -49,8 +49,16 @@ export function Plot(props: PlotProps) {
   useEffect(() => {
     const el = ref.current;
     if (!el) return;
-    const ro = new ResizeObserver(() => {
-      if ((el as unknown as PlotlyHTMLElement).layout) void loadPlotly().then((Plotly) => Plotly.Plots.resize(el));
+    // only a change of the box's width re-lays the figure out: plotly's own redraws change the element's
+    // height and children, which must not feed back into another resize
+    let lastWidth = -1;
+    const ro = new ResizeObserver((entries) => {
+      const width = Math.round(entries[entries.length - 1].contentRect.width);
+      if (width === lastWidth) return;
+      const first = lastWidth < 0;
+      lastWidth = width;
+      if (first || !(el as unknown as PlotlyHTMLElement).layout) return;
+      void loadPlotly().then((Plotly) => Plotly.Plots.resize(el));
     });
     ro.observe(el);
     return () => {
@@ -59,7 +67,10 @@ export function Plot(props: PlotProps) {
     };
   }, []);
 
-  useEffect(() => {
+  // the view's main figure is drawn before the browser paints the commit that changed it (one frame, no
+  // intermediate paint of stale plot next to a fresh table); secondary figures after that frame
+  const drawEffect = props.deferred ? useEffect : useLayoutEffect;
+  drawEffect(() => {
     const el = ref.current;
     if (!el) return;
     let cancelled = false;

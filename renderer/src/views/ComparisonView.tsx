@@ -23,6 +23,23 @@ export interface ComparisonViewProps {
 
 const G0 = 9.80665;
 
+type Profile = StudyEvaluation['internalGravity'][number];
+
+/** Same profiles, value for value (the evaluation rebuilds them on every re-evaluation). */
+function sameProfiles(a: readonly Profile[], b: readonly Profile[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    const p = a[i];
+    const q = b[i];
+    if (p.subject !== q.subject || p.condition !== q.condition || p.muscle !== q.muscle || p.n !== q.n) return false;
+    if (!Object.is(p.bestGMps2, q.bestGMps2) || !Object.is(p.loMps2, q.loMps2) || !Object.is(p.hiMps2, q.hiMps2)) return false;
+    if (p.logLik.length !== q.logLik.length || p.gMps2.length !== q.gMps2.length) return false;
+    for (let j = 0; j < p.logLik.length; j++) if (!Object.is(p.logLik[j], q.logLik[j])) return false;
+    for (let j = 0; j < p.gMps2.length; j++) if (!Object.is(p.gMps2[j], q.gMps2[j])) return false;
+  }
+  return true;
+}
+
 export function ComparisonView(props: ComparisonViewProps) {
   const { evaluation, settings, theme } = props;
   const muscles = settings.emgChannels.map((c) => c.muscle);
@@ -30,53 +47,62 @@ export function ComparisonView(props: ComparisonViewProps) {
   const [xKind, setXKind] = useState<'duration' | 'condition'>('duration');
   const subjects = useMemo(() => [...new Set(evaluation.trials.map((t) => t.subject))], [evaluation.trials]);
   const [subject, setSubject] = useState('all');
-  // labels follow the evaluation, so a settings change redraws once, when its evaluation arrives
-  const settingsRef = useRef(settings);
-  settingsRef.current = settings;
-  const labels = useMemo(
-    () => Object.fromEntries(evaluation.hypotheses.map((id) => [id, settingsRef.current.hypotheses.find((h) => h.id === id)?.label ?? id])),
-    [evaluation.hypotheses],
-  );
+  // every hypothesis seen in this study, in order of appearance, with its label: the scatter keeps one trace
+  // per hypothesis ever shown (hidden when not chosen), so a change of the hypothesis set restyles the
+  // traces in place instead of rebuilding the figure, and figures whose data did not change do not redraw
+  const seen = useRef(new Map<string, string>());
+  for (const h of settings.hypotheses) seen.current.set(h.id, h.label ?? h.id);
+  for (const id of evaluation.hypotheses) if (!seen.current.has(id)) seen.current.set(id, id);
+  const labelOf = (id: string) => seen.current.get(id) ?? id;
+  const labels = useMemo(() => Object.fromEntries(evaluation.hypotheses.map((id) => [id, labelOf(id)])), [evaluation.hypotheses]); // eslint-disable-line react-hooks/exhaustive-deps
   const c = THEMES[theme];
 
   const scatter = useMemo(() => {
     const rows = evaluation.trials.filter((t) => t.muscle === muscle && t.usable && (subject === 'all' || t.subject === subject));
     const conditions = [...new Set(rows.map((r) => r.condition))].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
-    const data: PlotData[] = evaluation.hypotheses.map((hid) => {
-      const k = hypothesisStyleIndex(hid, evaluation.hypotheses);
+    const shown = new Set(evaluation.hypotheses);
+    const all = [...seen.current.keys()];
+    const data: PlotData[] = all.map((hid) => {
+      const k = hypothesisStyleIndex(hid, shown.has(hid) ? evaluation.hypotheses : all);
       const x: (number | string)[] = [];
       const y: number[] = [];
       const ids: string[] = [];
-      for (const r of rows) {
-        const h = r.hypotheses.find((e) => e.hypothesis === hid);
-        if (!h || !Number.isFinite(h.ttcMs)) continue;
-        x.push(xKind === 'duration' ? r.motionDurationS : r.condition);
-        y.push(h.ttcMs);
-        ids.push(r.trialId);
+      if (shown.has(hid)) {
+        for (const r of rows) {
+          const h = r.hypotheses.find((e) => e.hypothesis === hid);
+          if (!h || !Number.isFinite(h.ttcMs)) continue;
+          x.push(xKind === 'duration' ? r.motionDurationS : r.condition);
+          y.push(h.ttcMs);
+          ids.push(r.trialId);
+        }
       }
       return {
         type: 'scatter',
         mode: 'markers',
-        name: labels[hid] ?? hid,
+        name: labelOf(hid),
+        visible: shown.has(hid),
         x,
         y,
         customdata: ids,
         marker: { color: hypothesisColour(k), symbol: HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length], size: 7, opacity: 0.8 },
-        hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${labels[hid] ?? hid}</extra>`,
+        hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${labelOf(hid)}</extra>`,
         ...(xKind === 'condition' ? { offsetgroup: hid } : {}),
       };
     });
-    const layout: Layout = {
-      height: 420,
-      margin: { l: 70, r: 20, t: 30, b: 50 },
-      legend: { orientation: 'h', y: 1.02, yanchor: 'bottom' },
-      hovermode: 'closest',
-      xaxis: xKind === 'duration' ? { title: { text: 'motion duration, release to contact (s)' } } : { title: { text: 'condition' }, type: 'category', categoryarray: conditions },
-      yaxis: { title: { text: 'time-to-contact at onset (ms)' } },
-      ...(xKind === 'condition' ? { scattermode: 'group' } : {}),
-    };
-    return { data, layout };
-  }, [evaluation, muscle, subject, xKind, labels]);
+    return { data, conditions };
+  }, [evaluation, muscle, subject, xKind]); // eslint-disable-line react-hooks/exhaustive-deps
+  // the layout changes only with the horizontal axis (fixed margins: the legend sits in the top margin
+  // without pushing it, so a longer legend never relayouts the figure)
+  const conditionKey = scatter.conditions.join('\u0000');
+  const scatterLayout = useMemo((): Layout => ({
+    height: 420,
+    margin: { l: 70, r: 20, t: 56, b: 50 },
+    legend: { orientation: 'h', xref: 'container', yref: 'container', x: 0.01, y: 0.995, xanchor: 'left', yanchor: 'top' },
+    hovermode: 'closest',
+    xaxis: xKind === 'duration' ? { title: { text: 'motion duration, release to contact (s)' } } : { title: { text: 'condition' }, type: 'category', categoryarray: scatter.conditions },
+    yaxis: { title: { text: 'time-to-contact at onset (ms)' } },
+    ...(xKind === 'condition' ? { scattermode: 'group' } : {}),
+  } as Layout), [xKind, conditionKey]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const models = useMemo(() => evaluation.models.filter((m) => m.muscle === muscle && (subject === 'all' || m.subject === subject)), [evaluation.models, muscle, subject]);
   const groups = useMemo(() => {
@@ -88,7 +114,12 @@ export function ComparisonView(props: ComparisonViewProps) {
     return [...map.entries()];
   }, [models]);
 
-  const profiles = useMemo(() => evaluation.internalGravity.filter((p) => p.muscle === muscle && (subject === 'all' || p.subject === subject)), [evaluation.internalGravity, muscle, subject]);
+  // the internal-gravity profiles do not depend on the hypothesis set: keep the same list (and figures)
+  // while their content is unchanged
+  const profilesNow = useMemo(() => evaluation.internalGravity.filter((p) => p.muscle === muscle && (subject === 'all' || p.subject === subject)), [evaluation.internalGravity, muscle, subject]);
+  const profilesKept = useRef(profilesNow);
+  if (profilesKept.current !== profilesNow && !sameProfiles(profilesKept.current, profilesNow)) profilesKept.current = profilesNow;
+  const profiles = profilesKept.current;
   const gravityFigure = useMemo(() => {
     const data: PlotData[] = [];
     const summary: PlotData = { type: 'scatter', mode: 'markers', x: [], y: [], error_x: { type: 'data', symmetric: false, array: [], arrayminus: [], color: c.text, thickness: 1.2 }, marker: { color: c.text, size: 8 }, name: 'internal gravity (95% interval)', hovertemplate: '%{y}<br>%{x:.2f} m/s²<extra></extra>' };
@@ -140,7 +171,7 @@ export function ComparisonView(props: ComparisonViewProps) {
       return {
         type: 'scatter',
         mode: 'lines+markers',
-        name: labels[hid] ?? hid,
+        name: labelOf(hid),
         x: Array.from(pick.delaysMs),
         y: Array.from({ length: nd }, (_, i) => pick.posterior[i * pick.hypotheses.length + k]),
         line: { color: hypothesisColour(style), dash: HYPOTHESIS_DASHES[style % HYPOTHESIS_DASHES.length] },
@@ -155,7 +186,7 @@ export function ComparisonView(props: ComparisonViewProps) {
       yaxis: { title: { text: 'posterior probability' }, range: [0, 1.02] },
     };
     return { data, layout, subject: pick.subject };
-  }, [evaluation.delaySensitivity, muscle, subject, labels]);
+  }, [evaluation.delaySensitivity, muscle, subject]); // eslint-disable-line react-hooks/exhaustive-deps
 
   return (
     <section className="view comparison" aria-label="Hypothesis comparison">
@@ -190,7 +221,7 @@ export function ComparisonView(props: ComparisonViewProps) {
         plotId="ttc-at-onset"
         label="Time-to-contact at onset per hypothesis"
         data={scatter.data}
-        layout={scatter.layout}
+        layout={scatterLayout}
         theme={theme}
         onClick={(points) => {
           const id = points[0]?.customdata;
