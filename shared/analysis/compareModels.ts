@@ -200,6 +200,49 @@ function resampleLogLik(stats: Float64Array, offsets: Int32Array, m: number, col
 }
 
 /**
+ * {@link resampleLogLik} for three neighbouring hypotheses in one pass (nine independent sums); adds the
+ * results to outA[b], outB[b] and outC[b].
+ */
+function resampleTripleLogLik(
+  stats: Float64Array,
+  offsets: Int32Array,
+  m: number,
+  col: number,
+  outA: Float64Array,
+  outB: Float64Array,
+  outC: Float64Array,
+  b: number,
+): void {
+  let aw = 0;
+  let awd = 0;
+  let awdd = 0;
+  let bw = 0;
+  let bwd = 0;
+  let bwdd = 0;
+  let cw = 0;
+  let cwd = 0;
+  let cwdd = 0;
+  for (let i = 0; i < m; i++) {
+    const q = offsets[i] + col;
+    aw += stats[q];
+    awd += stats[q + 1];
+    awdd += stats[q + 2];
+    bw += stats[q + 3];
+    bwd += stats[q + 4];
+    bwdd += stats[q + 5];
+    cw += stats[q + 6];
+    cwd += stats[q + 7];
+    cwdd += stats[q + 8];
+  }
+  const va = Math.max((awdd - (awd * awd) / aw) / m, FLOOR2);
+  const vb = Math.max((bwdd - (bwd * bwd) / bw) / m, FLOOR2);
+  const vc = Math.max((cwdd - (cwd * cwd) / cw) / m, FLOOR2);
+  outA[b] += -0.5 * m * (LOG2PI + Math.log(va) + 1);
+  outB[b] += -0.5 * m * (LOG2PI + Math.log(vb) + 1);
+  outC[b] += -0.5 * m * (LOG2PI + Math.log(vc) + 1);
+}
+
+/**
  * {@link resampleLogLik} for two neighbouring hypotheses in one pass (six independent sums keep the
  * processor busier than three); adds the results to outA[b] and outB[b].
  */
@@ -275,8 +318,9 @@ function replicateLogLiks(
       const base = start[s];
       for (let i = 0; i < m; i++) idx[i] = (base + idx[i]) * W;
       let h = 0;
-      for (; h + 1 < H; h += 2) resamplePairLogLik(stats, idx, m, 3 * h, out[h], out[h + 1], b);
-      if (h < H) out[h][b] += resampleLogLik(stats, idx, m, 3 * h);
+      for (; h + 2 < H; h += 3) resampleTripleLogLik(stats, idx, m, 3 * h, out[h], out[h + 1], out[h + 2], b);
+      if (h + 1 < H) resamplePairLogLik(stats, idx, m, 3 * h, out[h], out[h + 1], b);
+      else if (h < H) out[h][b] += resampleLogLik(stats, idx, m, 3 * h);
     }
   }
   return out;
