@@ -12,18 +12,8 @@ import {
   tkeo,
   type EmgConditioningSettings,
 } from '../../shared/emg';
+import { seededRandom as rng } from '../seededRandom';
 
-/** Seeded uniform generator (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 describe('Teager-Kaiser energy operator psi[x(n)] = x(n)^2 - x(n+1) x(n-1) (Kaiser 1990; FACTS.md EMG entry)', () => {
   it('matches hand-computed values', () => {

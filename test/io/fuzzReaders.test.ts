@@ -5,7 +5,7 @@ import { createDelimitedReader } from '../../shared/io/delimited/createDelimited
 import { readEdf } from '../../shared/io/edf/readEdf';
 import { writeEdf } from '../../shared/io/edf/writeEdf';
 import { readRecording } from '../../shared/io/readRecording';
-import { seededRandom } from './seededRandom';
+import { seededRandom } from '../seededRandom';
 
 const FIX = new URL('../fixtures/io/', import.meta.url);
 const fixture = (name: string) => new Uint8Array(readFileSync(new URL(name, FIX)));

@@ -12,18 +12,8 @@ import type { Recording } from '../../../shared/recording/types';
 import { readC3d, c3dToRecording, writeC3d, type C3dFile } from '../../../shared/io/c3d';
 import { buildC3dBytes } from './buildC3dBytes';
 import { smallSpec } from './smallC3dSpec';
+import { seededRandom as rng } from '../../seededRandom';
 
-/** Seeded generator (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function writerOutput(): Uint8Array {
   const frames = 40;

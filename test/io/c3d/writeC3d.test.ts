@@ -7,18 +7,8 @@ import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { Recording } from '../../../shared/recording/types';
 import { readC3d, c3dToRecording, writeC3d, getC3dParameter, getC3dUint16 } from '../../../shared/io/c3d';
+import { seededRandom as rng } from '../../seededRandom';
 
-/** Seeded generator (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Invented rail-lab trial: a ball driven down a vertical rail, a hand marker, two EMG channels at 4x. */
 function railTrial(frames: number, seed = 1): Recording {

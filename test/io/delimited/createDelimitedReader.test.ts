@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../../shared/errors';
 import { createDelimitedReader, type DelimitedReaderOptions } from '../../../shared/io/delimited/createDelimitedReader';
 import type { Recording } from '../../../shared/recording/types';
-import { seededRandom } from '../seededRandom';
+import { seededRandom } from '../../seededRandom';
 
 function read(text: string, opts: DelimitedReaderOptions = {}, chunk = 0, name = 'trial.csv'): Recording {
   const r = createDelimitedReader(name, opts);

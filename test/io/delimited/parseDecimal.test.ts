@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parseDecimal } from '../../../shared/io/delimited/parseDecimal';
-import { seededRandom } from '../seededRandom';
+import { seededRandom } from '../../seededRandom';
 
 // The reference is the JavaScript engine's own Number() conversion (ECMAScript StringToNumber), which is
 // correctly rounded; parseDecimal must return the identical double (Object.is, so -0 counts).

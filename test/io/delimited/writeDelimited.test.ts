@@ -3,7 +3,7 @@ import { DimensionMismatchError } from '../../../shared/errors';
 import { createDelimitedReader } from '../../../shared/io/delimited/createDelimitedReader';
 import { writeDelimitedMarkers, writeDelimitedSignals } from '../../../shared/io/delimited/writeDelimited';
 import type { MarkerStream, SignalChannel } from '../../../shared/recording/types';
-import { seededRandom } from '../seededRandom';
+import { seededRandom } from '../../seededRandom';
 
 function readText(text: string) {
   const r = createDelimitedReader('export.csv');

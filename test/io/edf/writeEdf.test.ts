@@ -4,7 +4,7 @@ import { readEdfHeader } from '../../../shared/io/edf/readEdfHeader';
 import { writeEdf } from '../../../shared/io/edf/writeEdf';
 import { formatEdfNumber } from '../../../shared/io/edf/formatEdfNumber';
 import type { RecordingEvent, SignalChannel } from '../../../shared/recording/types';
-import { seededRandom } from '../seededRandom';
+import { seededRandom } from '../../seededRandom';
 
 function invented(seed: number): SignalChannel[] {
   const rand = seededRandom(seed);

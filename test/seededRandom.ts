@@ -1,4 +1,4 @@
-/** Seeded pseudo-random numbers for the import tests (mulberry32; deterministic for a given seed). */
+/** Seeded pseudo-random numbers for tests (mulberry32; deterministic for a given seed). */
 export function seededRandom(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
