@@ -4,6 +4,7 @@
  * - shared/   may import only shared/ and the math/CSV libraries (ml-matrix, papaparse).
  * - renderer/ may import no Node built-in and not electron.
  * - cli/, bench/ may import no electron, react or renderer code.
+ * - electron/ may import no renderer code (the renderer reaches the shell only through the preload API).
  *
  * `npm test` runs this over the tree (test/layers.test.ts); a bad import fails the build.
  */
@@ -78,6 +79,9 @@ export function findLayerViolations(files: SourceFile[]): LayerViolation[] {
         if (isNode) add('renderer/ imports no Node built-in');
         else if (pkg === 'electron') add('renderer/ imports no electron');
         else if (relativeSpec && (resolvesInto(file.path, specifier, 'electron') || resolvesInto(file.path, specifier, 'cli'))) add('renderer/ talks to the host interface only, never to electron/ or cli/ code');
+      } else if (layer === 'electron') {
+        if (pkg === 'react' || pkg === 'react-dom') add('electron/ imports no react');
+        else if (relativeSpec && resolvesInto(file.path, specifier, 'renderer')) add('electron/ imports no renderer code');
       } else if (layer === 'cli' || layer === 'bench') {
         if (pkg === 'electron' || pkg === 'react' || pkg === 'react-dom') add(`${layer}/ imports no electron or react`);
         else if (relativeSpec && resolvesInto(file.path, specifier, 'renderer')) add(`${layer}/ imports no renderer code`);

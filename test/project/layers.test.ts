@@ -6,7 +6,7 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 
 describe('layer rule (../shared/STYLE.md: shared/ is pure; renderer/ never touches Node or Electron)', () => {
   it('holds for the whole tree', () => {
-    const files = readSources(root, ['shared', 'renderer', 'cli', 'bench']);
+    const files = readSources(root, ['shared', 'renderer', 'cli', 'bench', 'electron']);
     expect(files.length).toBeGreaterThan(0);
     const violations = findLayerViolations(files);
     expect(violations.map((v) => `${v.path}:${v.line} ${v.specifier} (${v.rule})`)).toEqual([]);
@@ -32,6 +32,14 @@ describe('layer rule (../shared/STYLE.md: shared/ is pure; renderer/ never touch
       { path: 'renderer/src/c.tsx', text: "import { x } from '../../shared/errors';\nimport React from 'react';" },
     ]);
     expect(found.map((v) => v.path)).toEqual(['renderer/src/a.tsx', 'renderer/src/b.tsx']);
+  });
+
+  it('catches renderer code imported by the Electron shell', () => {
+    const found = findLayerViolations([
+      { path: 'electron/main.ts', text: "import { App } from '../renderer/src/App';" },
+      { path: 'electron/preload.ts', text: "import { contextBridge } from 'electron';\nimport type { ForecatchBridge } from '../shared/ipc/contract';" },
+    ]);
+    expect(found.map((v) => v.path)).toEqual(['electron/main.ts']);
   });
 
   it('allows the math/CSV libraries and relative shared/ imports in shared/', () => {
