@@ -12,7 +12,7 @@ import { resolveAppAsset, mimeTypeFor } from './appProtocol';
 import { handle } from './ipc/handle';
 import { isAllowedNavigation } from './ipc/trustedSender';
 import { menuTemplate } from './menuTemplate';
-import { atomicWriteFile } from './atomicWrite';
+import { atomicWriteFile } from '../cli/io/atomicWrite';
 import { UserStore } from './userStore';
 import { MENU_EVENT_CHANNEL, RECENT_EVENT_CHANNEL, type FilePayload, type MenuCommand, type OpenedStudyPayload } from '../shared/ipc/contract';
 import { ForecatchError } from '../shared/errors';
@@ -128,7 +128,7 @@ function registerIpc(): void {
       if (r.canceled || !r.filePath) return null;
       target = r.filePath;
     }
-    await atomicWriteFile(target, text, { backup: true });
+    await atomicWriteFile(target, text, { keepBackup: true });
     currentStudyPath = target;
     grantFolder(dirname(target));
     await store.addRecent({ displayPath: target, name: basename(target), openedIso: new Date().toISOString() });
@@ -142,7 +142,7 @@ function registerIpc(): void {
     const folder = r.filePaths[0];
     const written: string[] = [];
     for (const f of files) {
-      await atomicWriteFile(join(folder, f.name), f.data, { backup: true });
+      await atomicWriteFile(join(folder, f.name), f.data, { keepBackup: true });
       written.push(f.name);
     }
     return { folder, written };

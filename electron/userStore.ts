@@ -4,7 +4,7 @@
  */
 import { readFile, unlink } from 'node:fs/promises';
 import { join } from 'node:path';
-import { atomicWriteFile } from './atomicWrite';
+import { atomicWriteFile } from '../cli/io/atomicWrite';
 import type { RecentStudy, RecoveredWork } from '../shared/ipc/contract';
 
 /** Most recent studies kept. */
@@ -42,14 +42,14 @@ export class UserStore {
   /** Records that a study was opened or saved. */
   async addRecent(entry: RecentStudy): Promise<RecentStudy[]> {
     const next = pushRecent(await this.recent(), entry);
-    await atomicWriteFile(this.recentPath, JSON.stringify(next, null, 2));
+    await atomicWriteFile(this.recentPath, JSON.stringify(next, null, 2), { keepBackup: false });
     return next;
   }
 
   /** Saves unsaved work (called a few seconds after each edit). */
   async autosave(text: string, displayPath: string | null): Promise<void> {
     const record: RecoveredWork = { text, savedIso: new Date().toISOString(), displayPath };
-    await atomicWriteFile(this.autosavePath, JSON.stringify(record));
+    await atomicWriteFile(this.autosavePath, JSON.stringify(record), { keepBackup: false });
   }
 
   /** Unsaved work left by a previous session, or null. */

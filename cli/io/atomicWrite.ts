@@ -19,9 +19,14 @@ export interface AtomicWriteOptions {
  * @param path - target path
  * @param data - text (UTF-8) or bytes
  * @param opts - backup policy
+ * @returns the backup's path when a previous version was kept, otherwise null
  * @throws ForecatchError `IO_ERROR` naming the path when the folder is missing or not writable
  */
-export async function atomicWriteFile(path: string, data: string | Uint8Array, opts: AtomicWriteOptions = {}): Promise<void> {
+export async function atomicWriteFile(
+  path: string,
+  data: string | Uint8Array,
+  opts: AtomicWriteOptions = {},
+): Promise<{ backupPath: string | null }> {
   const dir = dirname(path);
   const tmp = join(dir, `.${basename(path)}.tmp-${process.pid}-${Math.random().toString(36).slice(2, 10)}`);
   try {
@@ -32,9 +37,13 @@ export async function atomicWriteFile(path: string, data: string | Uint8Array, o
     } finally {
       await fh.close();
     }
+    let backupPath: string | null = null;
     if (opts.keepBackup !== false) {
-      const exists = await stat(path).then(() => true, () => false);
-      if (exists) await copyFile(path, `${path}.bak`);
+      const existing = await stat(path).catch(() => null);
+      if (existing?.isFile()) {
+        backupPath = `${path}.bak`;
+        await copyFile(path, backupPath);
+      }
     }
     await rename(tmp, path);
     // make the rename durable where the platform allows opening a folder
@@ -48,6 +57,7 @@ export async function atomicWriteFile(path: string, data: string | Uint8Array, o
     } catch {
       /* folders cannot be fsynced on every platform; the rename is still atomic */
     }
+    return { backupPath };
   } catch (err) {
     await unlink(tmp).catch(() => undefined);
     const e = err as NodeJS.ErrnoException;

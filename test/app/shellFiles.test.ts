@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, readdirSync, writeFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { atomicWriteFile } from '../../electron/atomicWrite';
+import { atomicWriteFile } from '../../cli/io/atomicWrite';
 import { UserStore, pushRecent } from '../../electron/userStore';
 import { menuTemplate } from '../../electron/menuTemplate';
 import { resolveInside, serveStatic } from '../../scripts/staticServer.mjs';
@@ -15,16 +15,16 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 describe('atomicWriteFile', () => {
   it('writes the new content, keeps the previous version as .bak, and leaves no temporary file', async () => {
     const p = join(dir, 'study.json');
-    expect((await atomicWriteFile(p, '{"v":1}', { backup: true })).backupPath).toBeNull();
-    const r = await atomicWriteFile(p, '{"v":2}', { backup: true });
+    expect((await atomicWriteFile(p, '{"v":1}', { keepBackup: true })).backupPath).toBeNull();
+    const r = await atomicWriteFile(p, '{"v":2}', { keepBackup: true });
     expect(r.backupPath).toBe(`${p}.bak`);
     expect(readFileSync(p, 'utf8')).toBe('{"v":2}');
     expect(readFileSync(`${p}.bak`, 'utf8')).toBe('{"v":1}');
-    expect(readdirSync(dir).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+    expect(readdirSync(dir).filter((f) => f.includes('.tmp'))).toEqual([]);
   });
   it('writes bytes exactly and fails cleanly into a missing folder', async () => {
     const p = join(dir, 'fig.png');
-    await atomicWriteFile(p, new Uint8Array([137, 80, 78, 71]));
+    await atomicWriteFile(p, new Uint8Array([137, 80, 78, 71]), { keepBackup: false });
     expect([...readFileSync(p)]).toEqual([137, 80, 78, 71]);
     await expect(atomicWriteFile(join(dir, 'nope', 'x.csv'), 'x')).rejects.toThrow();
   });
