@@ -1,4 +1,7 @@
-import { kalmanFilter } from '../ssm/kalmanFilter';
+import { allocateFilterResult } from '../ssm/kalmanFilter';
+import { filterAxis2, filterAxis3 } from '../ssm/axisFilter';
+import { checkFilterInputs } from '../ssm/filterInputs';
+import { nelderMead2 } from '../ssm/minimize';
 import { makeAxisModel, type HypothesisSpec } from '../ssm/hypotheses';
 
 /** Noise levels fitted for one axis. */
@@ -13,6 +16,42 @@ export interface AxisNoiseFit {
   iterations: number;
 }
 
+/** Kalman-filter log-likelihood of one trajectory as a function of the noise levels (q, R). */
+export type AxisLogLik = (qIntensity: number, measurementVarM2: number) => number;
+
+/**
+ * Likelihood-only evaluator of a per-axis model on one trajectory: the inputs are checked once, and every
+ * call runs the engine's scalar filter kernel into one reused output buffer (no smoother, no per-call
+ * allocation of per-sample arrays), which is what a noise search over many (q, R) needs. The value is
+ * exactly the `logLik` of `kalmanFilter(makeAxisModel(spec, ...), z, timesS)`.
+ *
+ * @param spec - hypothesis of the model (2 or 3 states, one observed component)
+ * @param z - observed heights, m (NaN = missing), length T
+ * @param timesS - sample times, s, strictly increasing
+ * @param x0 - prior state mean
+ * @param P0 - prior state covariance
+ * @returns (q, R) -> log-likelihood (natural log), -Infinity where the filter fails (S not positive...)
+ * @throws RangeError / DimensionMismatchError for bad inputs (as kalmanFilter)
+ * @see Harvey 1989, Forecasting, Structural Time Series Models and the Kalman Filter, sec. 3.4
+ *   (prediction-error decomposition of the likelihood)
+ */
+export function createAxisLogLik(spec: HypothesisSpec, z: Float64Array, timesS: Float64Array, x0: Float64Array, P0: Float64Array): AxisLogLik {
+  const probe = makeAxisModel(spec, { axis: 'vertical', qIntensity: 1, measurementVarM2: 1, x0, P0 });
+  checkFilterInputs(probe, z, timesS);
+  if (probe.m !== 1 || (probe.n !== 2 && probe.n !== 3)) throw new RangeError(`createAxisLogLik: needs a 2- or 3-state model with one observed component, got n = ${probe.n}, m = ${probe.m}`);
+  const res = allocateFilterResult(probe.n, 1, timesS);
+  const kernel = probe.n === 2 ? filterAxis2 : filterAxis3;
+  return (qIntensity, measurementVarM2) => {
+    try {
+      const model = makeAxisModel(spec, { axis: 'vertical', qIntensity, measurementVarM2, x0, P0 });
+      kernel(model, z, timesS, res);
+      return res.logLik;
+    } catch {
+      return -Infinity;
+    }
+  };
+}
+
 /**
  * Maximum-likelihood noise levels of a per-axis model by a coarse log grid over (q, r) followed by a
  * finer grid around the best point (the innovations log-likelihood of the Kalman filter is the objective).
@@ -24,21 +63,21 @@ export interface AxisNoiseFit {
  * @param timesS - sample times, s, strictly increasing
  * @param x0 - prior state mean
  * @param P0 - prior state covariance
+ * @param logLik - evaluator from {@link createAxisLogLik} for these inputs (made here when absent)
  * @returns the fitted noise levels
+ * @throws RangeError / DimensionMismatchError for bad inputs (as kalmanFilter)
  * @see Harvey 1989, Forecasting, Structural Time Series Models and the Kalman Filter, sec. 3.4
  *   (prediction-error decomposition of the likelihood)
  */
-export function fitAxisNoiseGrid(spec: HypothesisSpec, z: Float64Array, timesS: Float64Array, x0: Float64Array, P0: Float64Array): AxisNoiseFit {
+export function fitAxisNoiseGrid(
+  spec: HypothesisSpec, z: Float64Array, timesS: Float64Array, x0: Float64Array, P0: Float64Array,
+  logLik: AxisLogLik = createAxisLogLik(spec, z, timesS, x0, P0),
+): AxisNoiseFit {
   let best = { lq: 2, lr: -6, ll: -Infinity };
   let runs = 0;
   const evalAt = (lq: number, lr: number): number => {
     runs++;
-    const model = makeAxisModel(spec, { axis: 'vertical', qIntensity: 10 ** lq, measurementVarM2: 10 ** lr, x0, P0 });
-    try {
-      return kalmanFilter(model, z, timesS).logLik;
-    } catch {
-      return -Infinity;
-    }
+    return logLik(10 ** lq, 10 ** lr);
   };
   for (let lq = -2; lq <= 7; lq += 1) {
     for (let lr = -10; lr <= -3; lr += 1) {
@@ -59,4 +98,31 @@ export function fitAxisNoiseGrid(spec: HypothesisSpec, z: Float64Array, timesS: 
     }
   }
   return { qIntensity: 10 ** best.lq, measurementVarM2: 10 ** best.lr, logLik: best.ll, iterations: runs };
+}
+
+/**
+ * Refines noise levels by Nelder-Mead on (ln q, ln R) over the filter log-likelihood, from a unit simplex
+ * at the start values: the same search as the engine's `fitNoiseMle` (same start, tolerance and
+ * evaluation cap give the same result), run on a likelihood-only evaluator.
+ *
+ * @param logLik - evaluator from {@link createAxisLogLik}
+ * @param qInit - starting process-noise intensity, > 0
+ * @param rInit - starting measurement variance, m^2, > 0
+ * @param tol - relative tolerance on the log-likelihood spread of the simplex
+ * @param maxEvaluations - cap on filter runs
+ * @returns the best point found, its log-likelihood and the runs used
+ * @throws RangeError when a start value is not finite and > 0
+ * @see Nelder & Mead (1965), Computer J. 7:308-313
+ */
+export function refineAxisNoiseMle(logLik: AxisLogLik, qInit: number, rInit: number, tol: number, maxEvaluations: number): AxisNoiseFit {
+  if (!(qInit > 0 && Number.isFinite(qInit))) throw new RangeError(`refineAxisNoiseMle: qInit must be finite and > 0, got ${qInit}`);
+  if (!(rInit > 0 && Number.isFinite(rInit))) throw new RangeError(`refineAxisNoiseMle: rInit must be finite and > 0, got ${rInit}`);
+  let runs = 0;
+  const negLl = (lq: number, lr: number): number => {
+    runs++;
+    const ll = logLik(Math.exp(lq), Math.exp(lr));
+    return Number.isFinite(ll) ? -ll : Infinity;
+  };
+  const res = nelderMead2(negLl, Math.log(qInit), Math.log(rInit), tol, maxEvaluations);
+  return { qIntensity: Math.exp(res.x[0]), measurementVarM2: Math.exp(res.x[1]), logLik: -res.fx, iterations: runs };
 }
