@@ -40,6 +40,13 @@ function sameProfiles(a: readonly Profile[], b: readonly Profile[]): boolean {
   return true;
 }
 
+/** Same values in the same order (NaN equal to NaN). */
+function sameValues(a: readonly unknown[] | undefined, b: readonly unknown[]): boolean {
+  if (!a || a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
+}
+
 export function ComparisonView(props: ComparisonViewProps) {
   const { evaluation, settings, theme } = props;
   const muscles = settings.emgChannels.map((c) => c.muscle);
@@ -57,17 +64,28 @@ export function ComparisonView(props: ComparisonViewProps) {
   const labels = useMemo(() => Object.fromEntries(evaluation.hypotheses.map((id) => [id, labelOf(id)])), [evaluation.hypotheses]); // eslint-disable-line react-hooks/exhaustive-deps
   const c = THEMES[theme];
 
+  // per hypothesis, the trace last drawn: when a hypothesis' points are unchanged (a change of the hypothesis
+  // set leaves the other hypotheses' times-to-contact as they were), the same trace object is handed to
+  // Plotly.react again, which then skips its data diff for it and restyles only what changed (visibility)
+  const traceCache = useRef(new Map<string, PlotData>());
+  const traceCacheAxis = useRef(xKind);
   const scatter = useMemo(() => {
     const rows = evaluation.trials.filter((t) => t.muscle === muscle && t.usable && (subject === 'all' || t.subject === subject));
     const conditions = [...new Set(rows.map((r) => r.condition))].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
     const shown = new Set(evaluation.hypotheses);
     const all = [...seen.current.keys()];
+    // a hidden trace keeps points of the horizontal axis it was drawn against: forget them when that changes
+    if (traceCacheAxis.current !== xKind) traceCache.current.clear();
+    traceCacheAxis.current = xKind;
+    const cache = traceCache.current;
     const data: PlotData[] = all.map((hid) => {
       const k = hypothesisStyleIndex(hid, shown.has(hid) ? evaluation.hypotheses : all);
-      const x: (number | string)[] = [];
-      const y: number[] = [];
-      const ids: string[] = [];
-      if (shown.has(hid)) {
+      const visible = shown.has(hid);
+      const previous = cache.get(hid);
+      let x: (number | string)[] = [];
+      let y: number[] = [];
+      let ids: string[] = [];
+      if (visible) {
         for (const r of rows) {
           const h = r.hypotheses.find((e) => e.hypothesis === hid);
           if (!h || !Number.isFinite(h.ttcMs)) continue;
@@ -75,19 +93,32 @@ export function ComparisonView(props: ComparisonViewProps) {
           y.push(h.ttcMs);
           ids.push(r.trialId);
         }
+      } else if (previous) {
+        // hidden: keep its last points, so showing it again with the same points is a visibility change only
+        x = previous.x as (number | string)[];
+        y = previous.y as number[];
+        ids = previous.customdata as string[];
       }
-      return {
+      const colour = hypothesisColour(k);
+      const symbol = HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length];
+      const label = labelOf(hid);
+      if (previous && previous.visible === visible && previous.name === label && (previous.marker as { color?: unknown })?.color === colour && (previous.marker as { symbol?: unknown })?.symbol === symbol && sameValues(previous.x as unknown[], x) && sameValues(previous.y as unknown[], y) && sameValues(previous.customdata as unknown[], ids) && ('offsetgroup' in previous) === (xKind === 'condition')) return previous;
+      const same = previous && sameValues(previous.x as unknown[], x) && sameValues(previous.y as unknown[], y) && sameValues(previous.customdata as unknown[], ids);
+      const trace = {
         type: 'scatter',
         mode: 'markers',
-        name: labelOf(hid),
-        visible: shown.has(hid),
-        x,
-        y,
-        customdata: ids,
-        marker: { color: hypothesisColour(k), symbol: HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length], size: 7, opacity: 0.8 },
-        hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${labelOf(hid)}</extra>`,
+        name: label,
+        visible,
+        // unchanged points keep their arrays (plotly compares data arrays by identity)
+        x: same ? previous.x : x,
+        y: same ? previous.y : y,
+        customdata: same ? previous.customdata : ids,
+        marker: { color: colour, symbol, size: 7, opacity: 0.8 },
+        hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${label}</extra>`,
         ...(xKind === 'condition' ? { offsetgroup: hid } : {}),
-      };
+      } as PlotData;
+      cache.set(hid, trace);
+      return trace;
     });
     return { data, conditions };
   }, [evaluation, muscle, subject, xKind]); // eslint-disable-line react-hooks/exhaustive-deps
