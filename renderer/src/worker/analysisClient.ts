@@ -1,6 +1,11 @@
 /** The window's side of the analysis worker: typed, promise-based requests with progress reports. */
 import { deserializeError } from '../../../shared/errors';
-import type { WorkerEnvelope, WorkerMessage, WorkerReplies, WorkerRequest } from './protocol';
+import type { PackedEvaluateReply, WorkerEnvelope, WorkerMessage, WorkerReplies, WorkerRequest } from './protocol';
+import { unpackEvaluation } from './packEvaluation';
+
+function isPacked(value: unknown): value is PackedEvaluateReply {
+  return typeof value === 'object' && value !== null && 'packed' in value;
+}
 
 /** Progress of a long request (preparing trials). */
 export type ProgressListener = (done: number, total: number, label: string) => void;
@@ -23,7 +28,7 @@ export function createAnalysisClient(): AnalysisClient {
     if (msg.kind === 'progress') p.onProgress?.(msg.done, msg.total, msg.label);
     else {
       pending.delete(msg.id);
-      if (msg.kind === 'result') p.resolve(msg.value);
+      if (msg.kind === 'result') p.resolve(isPacked(msg.value) ? { evaluation: unpackEvaluation(msg.value.packed), ms: msg.value.ms, quick: msg.value.quick } : msg.value);
       else p.reject(deserializeError(msg.error));
     }
   };

@@ -14,8 +14,9 @@ import { methodsText } from '../../../shared/analysis/methodsText';
 import { readRecording } from '../../../shared/io/readRecording';
 import { serializeError } from '../../../shared/errors';
 import { generateDemoStudy } from './demoStudy';
+import { packEvaluation } from './packEvaluation';
 import { parseStudyText, studyFileText } from './studyText';
-import type { DemoSpec, Exclusions, StudyOpened, TrialDetail, WorkerEnvelope, WorkerMessage, WorkerReplies, WorkerRequest } from './protocol';
+import type { DemoSpec, Exclusions, PackedEvaluateReply, StudyOpened, TrialDetail, WorkerEnvelope, WorkerMessage, WorkerReplies, WorkerRequest } from './protocol';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -179,8 +180,13 @@ function handle(id: number, request: WorkerRequest): { value: unknown; transfer?
     }
     case 'prepare':
       return { value: prepareAll(id, request.settings ?? requireState().settings) };
-    case 'evaluate':
-      return { value: evaluate(request.settings, request.journal, request.exclusions, request.quick ?? false, id) };
+    case 'evaluate': {
+      const reply = evaluate(request.settings, request.journal, request.exclusions, request.quick ?? false, id);
+      const p = packEvaluation(reply.evaluation);
+      if (!p) return { value: reply };
+      const packed: PackedEvaluateReply = { packed: p.packed, ms: reply.ms, quick: reply.quick };
+      return { value: packed, transfer: p.transfer };
+    }
     case 'trialDetail': {
       const s = requireState();
       const prepared = s.prepared.find((p) => p.trial.id === request.trialId);

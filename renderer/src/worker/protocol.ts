@@ -5,6 +5,7 @@
  */
 import type { OnsetJournalLike, StudyEvaluation, StudySettings, TrialSpec, PreparedTrial, FailedTrial } from '../../../shared/analysis/types';
 import type { SerializedError } from '../../../shared/errors';
+import type { PackedEvaluation } from './packEvaluation';
 
 /** Size of a generated demo study (the bundled demo, or larger ones for benchmarks). */
 export interface DemoSpec {
@@ -39,6 +40,16 @@ export type WorkerRequest =
   | { type: 'trialDetail'; trialId: string }
   | { type: 'exports'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions }
   | { type: 'studyText'; settings: StudySettings; journal: OnsetJournalLike; exclusions: Exclusions };
+
+/**
+ * The evaluate reply as it travels: the worker sends the per-trial hypothesis results packed
+ * (packEvaluation) and the client rebuilds `WorkerReplies['evaluate']` before handing it on.
+ */
+export interface PackedEvaluateReply {
+  packed: PackedEvaluation;
+  ms: number;
+  quick: boolean;
+}
 
 /** Replies, by request type. */
 export interface WorkerReplies {
