@@ -2,7 +2,7 @@ import { kalmanFilter } from '../ssm/kalmanFilter';
 import { rtsSmooth } from '../ssm/rtsSmooth';
 import { makeAxisModel, type HypothesisSpec } from '../ssm/hypotheses';
 import type { ReconstructionSettings } from './types';
-import { createAxisLogLik, fitAxisNoiseGrid, refineAxisNoiseMle } from './fitAxisNoiseGrid';
+import { createAxisLogLik, fitAxisNoiseGrid, refineAxisNoiseMle, refineAxisNoiseNewton } from './fitAxisNoiseGrid';
 import { G0_MPS2 } from './hypothesisTtc';
 
 /** Filtered and smoothed vertical states in the common 3-state layout [height, velocity, acceleration]. */
@@ -39,7 +39,7 @@ function toThreeState(x: Float64Array, P: Float64Array, n: number, T: number, ki
 
 /**
  * Reconstructs the vertical motion of the object: Kalman filter and RTS smoother under the reconstruction
- * hypothesis with noise fitted by maximum likelihood (a bounded log grid, refined by Nelder-Mead as in the engine's fitNoiseMle;
+ * hypothesis with noise fitted by maximum likelihood (a bounded log grid, refined by Newton steps on the log noise levels;
  * or fixed), giving position, velocity, acceleration and
  * their covariances at every sample.
  *
@@ -74,13 +74,13 @@ export function reconstructVertical(heightM: Float64Array, timesS: Float64Array,
   if (settings.noise.kind === 'fixed') {
     noise = { qIntensity: settings.noise.qIntensity, measurementVarM2: settings.noise.measurementVarM2, logLik: NaN, fitted: false };
   } else {
-    // a bounded log grid finds the basin (about 100 filter runs); Nelder-Mead on (ln q, ln R) (the search
-    // of the engine's fitNoiseMle) refines it from there, kept when it does not lower the likelihood. Both
-    // run the likelihood-only filter into one reused buffer.
+    // a bounded log grid finds the basin (28 filter runs); Newton steps on (ln q, ln R) refine it from
+    // there (Nelder-Mead, the search of the engine's fitNoiseMle, when Newton cannot proceed), kept when it
+    // does not lower the likelihood. All run the likelihood-only filter into one reused buffer.
     const logLik = createAxisLogLik(spec, heightM, timesS, x0, P0);
     let fit: { qIntensity: number; measurementVarM2: number; logLik: number } = fitAxisNoiseGrid(spec, heightM, timesS, x0, P0, logLik);
-    const mle = refineAxisNoiseMle(logLik, fit.qIntensity, fit.measurementVarM2, 1e-6, 60);
-    if (mle.logLik >= fit.logLik && mle.qIntensity > 0 && mle.measurementVarM2 > 0) fit = mle;
+    const refined = refineAxisNoiseNewton(logLik, fit.qIntensity, fit.measurementVarM2) ?? refineAxisNoiseMle(logLik, fit.qIntensity, fit.measurementVarM2, 1e-6, 60);
+    if (refined.logLik >= fit.logLik && refined.qIntensity > 0 && refined.measurementVarM2 > 0) fit = refined;
     noise = { qIntensity: fit.qIntensity, measurementVarM2: fit.measurementVarM2, logLik: fit.logLik, fitted: true };
   }
   const model = makeAxisModel(spec, { axis: 'vertical', qIntensity: noise.qIntensity, measurementVarM2: noise.measurementVarM2, x0, P0 });
