@@ -8,6 +8,11 @@ import type { OnsetResultLike, StudySettings } from './types';
  * from the 0.4 s before the window (the object still at rest), plus the envelope of the whole channel for
  * views (settings.conditioning).
  *
+ * The channel is conditioned once when that gives the detector exactly what it would compute itself: the
+ * detector conditions the span baseline .. window end widened by its conditioning margin, so when that span
+ * is the whole channel and both use the same conditioning settings, the whole-channel result is handed to
+ * it (bit-identical onsets); otherwise the detector conditions its span as usual.
+ *
  * @param channel - raw EMG channel
  * @param offsetS - added to the channel's clock to put it on the kinematics clock, s
  * @param settings - study settings (conditioning, onset)
@@ -23,12 +28,29 @@ export function muscleOnset(
 ): { result: OnsetResultLike; envelope: Float64Array; startS: number } {
   const startS = channel.startS + offsetS;
   const baselineFromS = Math.max(startS, searchWindow.fromS - 0.4);
+  const whole = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
+  const reuse = detectorSpanIsWholeChannel(channel, startS, baselineFromS, searchWindow.toS, settings) &&
+    JSON.stringify(settings.onset.conditioning) === JSON.stringify(settings.conditioning);
   const result = detectOnset(channel.values, channel.rateHz, startS, settings.onset, {
     fromS: searchWindow.fromS,
     toS: searchWindow.toS,
     baselineFromS,
     baselineToS: searchWindow.fromS,
-  });
-  const { envelope } = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
-  return { result, envelope, startS };
+  }, reuse ? whole : undefined);
+  return { result, envelope: whole.envelope, startS };
+}
+
+/**
+ * True when detectOnset's conditioning span (from the baseline start to the window end, each widened by
+ * settings.onset.conditioningMarginS, clipped to the channel) is certainly the whole channel; mirrors the
+ * detector's sample indexing, and answers false when in doubt.
+ */
+function detectorSpanIsWholeChannel(channel: SignalChannel, startS: number, baselineFromS: number, toS: number, settings: StudySettings): boolean {
+  const n = channel.values.length;
+  const rateHz = channel.rateHz;
+  if (!(rateHz > 0) || !Number.isFinite(startS) || !Number.isFinite(baselineFromS) || !Number.isFinite(toS)) return false;
+  const index = (tS: number): number => Math.min(n, Math.max(0, Math.ceil((tS - startS) * rateHz - 1e-9)));
+  const marginSamples = Math.round(settings.onset.conditioningMarginS * rateHz);
+  if (!(marginSamples >= 0)) return false;
+  return index(baselineFromS) <= marginSamples && index(toS) + marginSamples >= n;
 }
