@@ -226,6 +226,7 @@ async function run(): Promise<void> {
     console.log(`| ... with bootstrap intervals and delay sweep | ${f(demoRefinedMs)} | |`);
     console.log(`| open a 200-trial study (4 subjects x 50, 2 muscles) | ${f(open200Ms)} | |`);
     console.log(`| hypothesis set change -> comparison repainted, 200 trials (median of ${quick.length}; min ${f(Math.min(...quick))}, max ${f(Math.max(...quick))}) | ${f(median(quick))} | 1.00 |`);
+    console.log(`| ... each switch in order (off, on, off, ...): ${quick.map((q) => q.toFixed(0)).join(', ')} ms | | |`);
     console.log(`| ... of which the worker's quick evaluation (no bootstrap, no delay sweep) | ${f(median(quickWorker))} | 1.00 |`);
     console.log(`| peer: the worker's full evaluation (500 bootstrap replicates, 9-delay sweep) | ${f(median(fullWorker))} | ${(median(fullWorker) / median(quickWorker)).toFixed(2)} |`);
     console.log(`| full evaluation repainted, from the click (includes the 400 ms pause before it starts) | ${f(median(full))} | |`);

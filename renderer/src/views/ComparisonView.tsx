@@ -286,16 +286,10 @@ export function ComparisonView(props: ComparisonViewProps) {
                     const r = rows.find((x) => x.hypothesis === h);
                     if (!r) return <td key={h}>—</td>;
                     return (
+                      // one text node per line (fewer DOM nodes to create on every re-evaluation)
                       <td key={h} className={`num ${r.posterior === best ? 'best' : ''}`} data-hypothesis={h} title={`log-likelihood ${r.logLik.toFixed(2)}, AIC ${r.aic.toFixed(1)}, BIC ${r.bic.toFixed(1)}`}>
-                        <span className="posterior">P = {r.posterior.toFixed(3)}</span>
-                        <br />
-                        <span className="muted">
-                          ΔlogL {r.dLogLik.toFixed(2)} {Number.isFinite(r.dLogLikLo) ? `[${r.dLogLikLo.toFixed(2)}, ${r.dLogLikHi.toFixed(2)}]` : '[…]'}
-                        </span>
-                        <br />
-                        <span className="muted">
-                          ttc {fmtMs(r.ttcMeanMs)} ± {fmtMs(r.ttcSdMs)} ms
-                        </span>
+                        <span className="posterior">{`P = ${r.posterior.toFixed(3)}`}</span>
+                        <span className="muted detail">{`ΔlogL ${r.dLogLik.toFixed(2)} ${Number.isFinite(r.dLogLikLo) ? `[${r.dLogLikLo.toFixed(2)}, ${r.dLogLikHi.toFixed(2)}]` : '[…]'}\nttc ${fmtMs(r.ttcMeanMs)} ± ${fmtMs(r.ttcSdMs)} ms`}</span>
                       </td>
                     );
                   })}
