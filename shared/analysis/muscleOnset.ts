@@ -29,8 +29,7 @@ export function muscleOnset(
   const startS = channel.startS + offsetS;
   const baselineFromS = Math.max(startS, searchWindow.fromS - 0.4);
   const whole = conditionEmg(channel.values, channel.rateHz, settings.conditioning);
-  const reuse = detectorSpanIsWholeChannel(channel, startS, baselineFromS, searchWindow.toS, settings) &&
-    JSON.stringify(settings.onset.conditioning) === JSON.stringify(settings.conditioning);
+  const reuse = detectorSpanIsWholeChannel(channel, startS, baselineFromS, searchWindow.toS, settings) && sameConditioning(settings);
   const result = detectOnset(channel.values, channel.rateHz, startS, settings.onset, {
     fromS: searchWindow.fromS,
     toS: searchWindow.toS,
@@ -38,6 +37,11 @@ export function muscleOnset(
     baselineToS: searchWindow.fromS,
   }, reuse ? whole : undefined);
   return { result, envelope: whole.envelope, startS };
+}
+
+/** Whether settings.onset.conditioning equals settings.conditioning (same values; compared afresh every call). */
+function sameConditioning(settings: StudySettings): boolean {
+  return settings.onset.conditioning === settings.conditioning || JSON.stringify(settings.onset.conditioning) === JSON.stringify(settings.conditioning);
 }
 
 /**

@@ -53,9 +53,22 @@ export function prepareTrial(trial: TrialSpec, recording: Recording, settings: S
   }
   const up = parseUpAxis(settings.upAxis);
   const T = stream.frameCount;
-  const timesS = stream.timesS ? Float64Array.from(stream.timesS) : new Float64Array(T).map((_, i) => stream.startS + i / stream.rateHz);
+  let timesS: Float64Array;
+  if (stream.timesS) timesS = Float64Array.from(stream.timesS);
+  else {
+    timesS = new Float64Array(T);
+    for (let i = 0; i < T; i++) timesS[i] = stream.startS + i / stream.rateHz;
+  }
   const axisOf = (m: { x: Float64Array; y: Float64Array; z: Float64Array }): Float64Array => (up.index === 0 ? m.x : up.index === 1 ? m.y : m.z);
-  const heightAll = axisOf(obj).map((v) => up.sign * v);
+  /** up.sign * axis values + offsetM, as a new array (a plain loop: no per-sample callback). */
+  const heightOf = (m: { x: Float64Array; y: Float64Array; z: Float64Array }, offsetM: number): Float64Array => {
+    const src = axisOf(m);
+    const out = new Float64Array(src.length);
+    for (let i = 0; i < src.length; i++) out[i] = up.sign * src[i];
+    if (offsetM !== 0) for (let i = 0; i < src.length; i++) out[i] += offsetM;
+    return out;
+  };
+  const heightAll = heightOf(obj, 0);
   let observed = 0;
   for (let i = 0; i < T; i++) if (Number.isFinite(heightAll[i])) observed++;
   if (observed < 10) throw new AnalysisError('too-few-samples', `${recording.source}: marker '${obj.label}' has ${observed} valid samples`);
@@ -67,7 +80,7 @@ export function prepareTrial(trial: TrialSpec, recording: Recording, settings: S
     const tm = byLabel(stream.markers, settings.target.marker);
     if (!tm) throw new AnalysisError('no-target-marker', `${recording.source}: no target marker '${settings.target.marker}'`);
     const off = settings.target.offsetM ?? 0;
-    targetAll = fillNaN(axisOf(tm).map((v) => up.sign * v + off));
+    targetAll = fillNaN(heightOf(tm, off));
     if (!Number.isFinite(targetAll[0])) throw new AnalysisError('no-target-marker', `${recording.source}: target marker '${tm.label}' has no valid samples`);
   } else targetAll = new Float64Array(T).fill(settings.target.heightM);
 
