@@ -66,22 +66,26 @@ export function ComparisonView(props: ComparisonViewProps) {
 
   // per hypothesis, the trace last drawn: when a hypothesis' points are unchanged (a change of the hypothesis
   // set leaves the other hypotheses' times-to-contact as they were), the same trace object is handed to
-  // Plotly.react again, which then skips its data diff for it and restyles only what changed (visibility)
-  const traceCache = useRef(new Map<string, PlotData>());
-  const traceCacheAxis = useRef(xKind);
+  // Plotly.react again, which then skips it. A hypothesis switched off keeps its trace and points, made
+  // transparent, out of the legend and out of hover (style-only edits for plotly: switching hypotheses
+  // neither recomputes the figure nor moves its axes); against condition, where every trace takes a slot in
+  // each category, it is hidden outright instead.
+  const traceCache = useRef(new Map<string, { trace: PlotData; style: string }>());
+  const traceCacheKey = useRef('');
   const scatter = useMemo(() => {
     const rows = evaluation.trials.filter((t) => t.muscle === muscle && t.usable && (subject === 'all' || t.subject === subject));
     const conditions = [...new Set(rows.map((r) => r.condition))].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
     const shown = new Set(evaluation.hypotheses);
     const all = [...seen.current.keys()];
-    // a hidden trace keeps points of the horizontal axis it was drawn against: forget them when that changes
-    if (traceCacheAxis.current !== xKind) traceCache.current.clear();
-    traceCacheAxis.current = xKind;
+    // hidden traces keep points of the muscle, subject and axis they were drawn for: forget them when these change
+    const key = `${muscle}\u0000${subject}\u0000${xKind}`;
+    if (traceCacheKey.current !== key) traceCache.current.clear();
+    traceCacheKey.current = key;
     const cache = traceCache.current;
     const data: PlotData[] = all.map((hid) => {
       const k = hypothesisStyleIndex(hid, shown.has(hid) ? evaluation.hypotheses : all);
       const visible = shown.has(hid);
-      const previous = cache.get(hid);
+      const previous = cache.get(hid)?.trace;
       let x: (number | string)[] = [];
       let y: number[] = [];
       let ids: string[] = [];
@@ -94,7 +98,6 @@ export function ComparisonView(props: ComparisonViewProps) {
           ids.push(r.trialId);
         }
       } else if (previous) {
-        // hidden: keep its last points, so showing it again with the same points is a visibility change only
         x = previous.x as (number | string)[];
         y = previous.y as number[];
         ids = previous.customdata as string[];
@@ -102,22 +105,26 @@ export function ComparisonView(props: ComparisonViewProps) {
       const colour = hypothesisColour(k);
       const symbol = HYPOTHESIS_SYMBOLS[k % HYPOTHESIS_SYMBOLS.length];
       const label = labelOf(hid);
-      if (previous && previous.visible === visible && previous.name === label && (previous.marker as { color?: unknown })?.color === colour && (previous.marker as { symbol?: unknown })?.symbol === symbol && sameValues(previous.x as unknown[], x) && sameValues(previous.y as unknown[], y) && sameValues(previous.customdata as unknown[], ids) && ('offsetgroup' in previous) === (xKind === 'condition')) return previous;
-      const same = previous && sameValues(previous.x as unknown[], x) && sameValues(previous.y as unknown[], y) && sameValues(previous.customdata as unknown[], ids);
+      const style = `${visible}\u0000${label}\u0000${colour}\u0000${symbol}`;
+      const same = previous !== undefined && sameValues(previous.x as unknown[], x) && sameValues(previous.y as unknown[], y) && sameValues(previous.customdata as unknown[], ids);
+      if (same && cache.get(hid)?.style === style) return previous;
+      const byCondition = xKind === 'condition';
       const trace = {
         type: 'scatter',
         mode: 'markers',
         name: label,
-        visible,
+        visible: visible || !byCondition,
+        showlegend: visible,
+        hoverinfo: visible ? 'all' : 'skip',
         // unchanged points keep their arrays (plotly compares data arrays by identity)
         x: same ? previous.x : x,
         y: same ? previous.y : y,
         customdata: same ? previous.customdata : ids,
-        marker: { color: colour, symbol, size: 7, opacity: 0.8 },
+        marker: { color: colour, symbol, size: 7, opacity: visible ? 0.8 : 0 },
         hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${label}</extra>`,
-        ...(xKind === 'condition' ? { offsetgroup: hid } : {}),
+        ...(byCondition ? { offsetgroup: hid } : {}),
       } as PlotData;
-      cache.set(hid, trace);
+      cache.set(hid, { trace, style });
       return trace;
     });
     return { data, conditions };
