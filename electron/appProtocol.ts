@@ -2,25 +2,10 @@
  * Serving the renderer's build (dist/) under `forecatch://app/` instead of file://: the page gets a real
  * origin for the CSP and the IPC sender check, and cannot read anything outside dist/.
  */
-import { extname, resolve, sep } from 'node:path';
+import { resolve, sep } from 'node:path';
 import { APP_HOST, APP_SCHEME } from './windowOptions';
 
-const MIME: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.mjs': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.json': 'application/json; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.ico': 'image/x-icon',
-  '.wasm': 'application/wasm',
-};
-
-/** Content type for an asset path (octet-stream when unknown). */
-export function mimeTypeFor(path: string): string {
-  return MIME[extname(path).toLowerCase()] ?? 'application/octet-stream';
-}
+export { mimeTypeFor } from '../scripts/mimeTypes.mjs';
 
 /**
  * Maps a request URL on the app scheme to a file inside `distRoot`.

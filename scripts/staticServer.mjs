@@ -2,26 +2,10 @@
 // `npm start` without Electron's runtime, `npm run web`, the end-to-end tests and the browser benchmark.
 import { createServer } from 'node:http';
 import { createReadStream, statSync } from 'node:fs';
-import { extname, join, normalize, resolve, sep } from 'node:path';
+import { join, normalize, resolve, sep } from 'node:path';
 import { CONTENT_SECURITY_POLICY } from './csp.mjs';
+import { mimeTypeFor } from './mimeTypes.mjs';
 
-const MIME = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.mjs': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.json': 'application/json; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.ico': 'image/x-icon',
-  '.csv': 'text/csv; charset=utf-8',
-  '.txt': 'text/plain; charset=utf-8',
-  '.c3d': 'application/octet-stream',
-  '.edf': 'application/octet-stream',
-  '.bdf': 'application/octet-stream',
-  '.bin': 'application/octet-stream',
-  '.wasm': 'application/wasm',
-};
 
 /**
  * Resolves a URL path inside `root`, or null when it would leave it.
@@ -68,7 +52,7 @@ export async function serveStatic(dir, opts = {}) {
       if (statSync(file).isDirectory()) file = join(file, 'index.html');
       const st = statSync(file);
       res.writeHead(200, {
-        'Content-Type': MIME[extname(file).toLowerCase()] ?? 'application/octet-stream',
+        'Content-Type': mimeTypeFor(file),
         'Content-Length': st.size,
         'Content-Security-Policy': CONTENT_SECURITY_POLICY,
         'X-Content-Type-Options': 'nosniff',
