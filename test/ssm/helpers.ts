@@ -3,17 +3,11 @@
  */
 import type { StateSpaceModel } from '../../shared/ssm/stateSpaceModel';
 import { whiteNoiseAccelerationQ } from '../../shared/ssm/processNoise';
+import { seededRandom } from '../seededRandom';
 
 /** Seeded uniform generator (mulberry32) and standard normals by Box-Muller. */
 export function rng(seed: number): { uniform(): number; normal(): number } {
-  let a = seed >>> 0;
-  const uniform = (): number => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = seededRandom(seed);
   let spare = NaN;
   const normal = (): number => {
     if (!Number.isNaN(spare)) {
