@@ -2,6 +2,7 @@
  * The arithmetic of sosFiltFilt, taking its input from a source array with an offset subtracted: the copy into
  * the output and the offset removal are one loop, and the odd-extension padding is read from the source.
  */
+import { bandCascadePlan, bandFiltFilt } from './bandCascade';
 import { sosFiltZi } from './sosFilt';
 import { sosFilterInPlace } from './sosKernel';
 import type { Sos } from './zpkToSos';
@@ -17,6 +18,12 @@ import type { Sos } from './zpkToSos';
  * @see sosFiltFilt in sosFiltFilt.ts; Gustafsson F. (1996) IEEE Trans Signal Process 44:988-992
  */
 export function filtFiltFrom(sos: Sos, src: Float64Array, shift: number, out: Float64Array, edge: number): void {
+  // Butterworth band-passes take the cheaper band-pass cascade (same transfer function, see bandCascade.ts).
+  const band = bandCascadePlan(sos);
+  if (band) {
+    bandFiltFilt(band, src, shift, out, edge);
+    return;
+  }
   const n = src.length;
   // The odd extensions live in two small buffers; the kernel runs left, middle, right with the state carried
   // across, which is the same arithmetic as filtering one contiguous extended array.
