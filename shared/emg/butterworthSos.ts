@@ -116,8 +116,20 @@ export function butterworthSos(
   if (!(passes >= 1) || !Number.isInteger(passes)) {
     throw new RangeError(`butterworthSos: correctForPasses must be a positive integer, got ${passes}`);
   }
-  // Pre-warping for the bilinear transform at fs = 2 (normalised): Omega = 2 fs tan(pi Wn / fs) = 4 tan(pi f / rate).
-  const warped = prewarpedEdges(edges, sampleRateHz, type, order, passes).map((w) => 4 * w);
-  const analog = transformPrototype(butterworthPrototype(order), type, warped);
-  return zpkToSos(bilinearZpk(analog, 2));
+  // Batch work designs the same few filters for every channel: designs are kept by their arguments and each
+  // caller gets its own copy.
+  const key = `${order}|${edges.join(',')}|${sampleRateHz}|${type}|${passes}`;
+  let sos = designs.get(key);
+  if (!sos) {
+    // Pre-warping for the bilinear transform at fs = 2 (normalised): Omega = 2 fs tan(pi Wn / fs) = 4 tan(pi f / rate).
+    const warped = prewarpedEdges(edges, sampleRateHz, type, order, passes).map((w) => 4 * w);
+    const analog = transformPrototype(butterworthPrototype(order), type, warped);
+    sos = zpkToSos(bilinearZpk(analog, 2));
+    if (designs.size >= MAX_KEPT_DESIGNS) designs.clear();
+    designs.set(key, sos);
+  }
+  return sos.slice();
 }
+
+const MAX_KEPT_DESIGNS = 64;
+const designs = new Map<string, Sos>();
