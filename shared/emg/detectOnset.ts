@@ -14,6 +14,19 @@ import { tkeoThresholdOnset } from './tkeoThresholdOnset';
 
 const MIN_BASELINE_SAMPLES = 20;
 
+// The conditioned span lives only during one call (results hold times, not samples): one pair of scratch
+// buffers, grown as needed, serves every call, so batch work does not claim fresh memory per channel.
+let scratchConditioned = new Float64Array(0);
+let scratchEnvelope = new Float64Array(0);
+
+function spanBuffers(n: number): { conditioned: Float64Array; envelope: Float64Array } {
+  if (scratchConditioned.length < n) {
+    scratchConditioned = new Float64Array(n);
+    scratchEnvelope = new Float64Array(n);
+  }
+  return { conditioned: scratchConditioned.subarray(0, n), envelope: scratchEnvelope.subarray(0, n) };
+}
+
 function detector(ctx: OnsetContext): DetectorOutput {
   switch (ctx.settings.method) {
     case 'baseline-threshold':
@@ -138,7 +151,7 @@ export function detectOnset(
 
   const { conditioned, envelope } = preconditioned
     ? { conditioned: preconditioned.conditioned.subarray(segFrom, segTo), envelope: preconditioned.envelope.subarray(segFrom, segTo) }
-    : conditionEmg(raw, rateHz, settings.conditioning);
+    : conditionEmg(raw, rateHz, settings.conditioning, spanBuffers(raw.length));
   const ctx: OnsetContext = {
     rateHz,
     t0S,
