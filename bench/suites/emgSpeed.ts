@@ -46,14 +46,18 @@ for _ in range(repeats):
 print(json.dumps({"seconds": walls, "cpuSeconds": cpus, "scipy": scipy.__version__, "checksum": float(y[:, 1000:1010].sum())}))
 `;
 
-// A full garbage collection before each timed run, so no run pays for the garbage of the one before it.
+// A full garbage collection before each timed run, then a short idle pause: V8 frees large array buffers and
+// sweeps on background threads after a collection, and that work (the garbage of the run before, not of this one)
+// would otherwise land in this run's CPU time and compete with it for the machine's two cores.
 setFlagsFromString('--expose-gc');
 const collectGarbage = runInNewContext('gc') as () => void;
+const SETTLE_MS = 100;
 
 /** Wall-clock and CPU seconds of each of REPEATS runs, appended to the lists. */
-function timeRuns(fn: () => void, wall: number[], cpu: number[]): void {
+async function timeRuns(fn: () => void, wall: number[], cpu: number[]): Promise<void> {
   for (let r = 0; r < REPEATS; r++) {
     collectGarbage();
+    await new Promise((resolve) => setTimeout(resolve, SETTLE_MS));
     const c0 = process.cpuUsage();
     const t0 = performance.now();
     fn();
@@ -132,7 +136,7 @@ export const suite: BenchSuite = {
     try {
       for (const fn of Object.values(work)) fn(); // warm-up: compile every path before timing
       for (let round = 0; round < ROUNDS; round++) {
-        for (const key of keys) timeRuns(work[key], wallRuns[key], cpuRuns[key]);
+        for (const key of keys) await timeRuns(work[key], wallRuns[key], cpuRuns[key]);
         if (!file || scipyNote.startsWith('skipped')) continue;
         const res = spawnSync(PYTHON, ['-c', PY_TIMER, file, String(CHANNELS), JSON.stringify(Array.from(bandPass)), String(REPEATS)], { encoding: 'utf8' });
         if (res.status === 0) {
