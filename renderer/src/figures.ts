@@ -1,6 +1,18 @@
 /** Figure export: every plot of the current view as PNG and SVG through plotly's own image export. */
 import { loadPlotly } from './plot/loadPlotly';
+import type { Layout, PlotData } from 'plotly.js-dist-min';
 import type { OutputFile } from './host/host';
+
+/**
+ * `meta` of a trace the user switched off that stays on screen, transparent, so that the axes hold still;
+ * exported figures leave such traces out.
+ */
+export const SWITCHED_OFF = 'forecatch:switched-off';
+
+/** What an exported image is drawn from: the plot's traces without those switched off, and its layout. */
+export function exportFigure(data: PlotData[], layout: Layout): { data: PlotData[]; layout: Layout } {
+  return { data: data.filter((t) => t.meta !== SWITCHED_OFF), layout };
+}
 
 /** Bytes of a `data:` URL (base64 or percent-encoded). */
 export function dataUrlBytes(url: string): Uint8Array {
@@ -26,8 +38,10 @@ export async function renderFigures(root: ParentNode, formats: ('png' | 'svg')[]
   const files: OutputFile[] = [];
   for (const el of Array.from(root.querySelectorAll<HTMLElement>('[data-plot-id]'))) {
     const id = (el.dataset.plotId ?? 'figure').replace(/[^\w.-]+/g, '_');
+    const drawn = el as HTMLElement & { data?: PlotData[]; layout?: Layout };
+    const source = drawn.data && drawn.layout ? exportFigure(drawn.data, drawn.layout) : el;
     for (const format of formats) {
-      const url = await Plotly.toImage(el, { format, width: Math.max(800, el.clientWidth), height: Math.max(400, el.clientHeight), scale: format === 'png' ? 2 : 1 });
+      const url = await Plotly.toImage(source, { format, width: Math.max(800, el.clientWidth), height: Math.max(400, el.clientHeight), scale: format === 'png' ? 2 : 1 });
       files.push({ name: `${id}.${format}`, data: format === 'svg' ? new TextDecoder().decode(dataUrlBytes(url)) : dataUrlBytes(url) });
     }
   }

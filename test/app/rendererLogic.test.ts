@@ -6,6 +6,7 @@ import { buildTrialRows } from '../../renderer/src/views/trialRows';
 import { DEFAULT_INVALID_REASON, makeEdit } from '../../renderer/src/state/journalOps';
 import { applyEdit, effectiveOnset, emptyJournal, onsetEditProblem, redo, undo } from '../../shared/emg/onsetJournal';
 import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
+import { SWITCHED_OFF, exportFigure } from '../../renderer/src/figures';
 import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
 
 const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
@@ -102,5 +103,19 @@ describe('study table rows', () => {
     expect(rows[1]).toMatchObject({ noOnset: true, excluded: true, excludeReason: 'ball touched the rail' });
     expect(rows[1].muscles.ECR.invalid).toBe(true);
     expect(rows[2]).toMatchObject({ badData: true, noOnset: false });
+  });
+});
+
+describe('exported figures leave out what the user switched off', () => {
+  it('drops traces marked switched off and keeps the rest, in order, with the layout unchanged', () => {
+    const layout = { height: 420 };
+    const data = [
+      { name: 'no gravity', meta: undefined },
+      { name: 'Earth gravity', meta: SWITCHED_OFF },
+      { name: 'half Earth gravity' },
+    ];
+    const fig = exportFigure(data, layout);
+    expect(fig.data.map((t) => t.name)).toEqual(['no gravity', 'half Earth gravity']);
+    expect(fig.layout).toBe(layout);
   });
 });

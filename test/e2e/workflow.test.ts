@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync, existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import type { Download } from 'playwright-core';
 import { openBrowserBuild, SCREENSHOT_DIR, SKIP_REASON, type BrowserSession } from './browserHarness';
 
 if (SKIP_REASON) console.warn(`skipping end-to-end tests: ${SKIP_REASON}`);
@@ -147,6 +148,34 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     expect(excludedRows.every((r) => r[col('excluded')] === 'true' && r[col('usable')] === 'false')).toBe(true);
     expect(csv).toContain('ball touched the rail');
     expect(new Set(rows.map((r) => r[col('trial')])).size).toBe(36);
+  }, 120_000);
+
+  // After the tables: headless Chromium holds back a page's automatic downloads once it has made several, as a
+  // browser asks its user to allow them.
+  it('exports the comparison figure without the switched-off hypothesis', async () => {
+    const downloads: { name: string; path: string }[] = [];
+    const onDownload = async (d: Download) => downloads.push({ name: d.suggestedFilename(), path: (await d.path())! });
+    s.page.on('download', onDownload);
+    await s.page.click('button[role=tab]:has-text("Hypotheses")');
+    await s.page.waitForSelector('[data-plot-id="ttc-at-onset"] .main-svg', { timeout: 60_000 });
+    // switched on and off again while the view is open, Earth gravity's points stay on screen, transparent
+    const legend = () => s.page.locator('[data-plot-id="ttc-at-onset"] .legendtext').allTextContents();
+    await s.page.check('input[data-hypothesis="gravity"]');
+    await expect.poll(async () => (await legend()).some((t) => t.includes('Earth gravity (9.80665'))).toBe(true);
+    await s.page.uncheck('input[data-hypothesis="gravity"]');
+    await expect.poll(async () => (await legend()).some((t) => t.includes('Earth gravity (9.80665'))).toBe(false);
+    await s.page.click('button:has-text("Export figures")');
+    await expect.poll(() => downloads.some((d) => d.name === 'ttc-at-onset.svg'), { timeout: 60_000 }).toBe(true);
+    s.page.off('download', onDownload);
+    const svg = readFileSync(downloads.find((d) => d.name === 'ttc-at-onset.svg')!.path, 'utf8');
+    // on screen the switched-off series stays as transparent points (steady axes); the file has none of them
+    const transparentPoints = (text: string) => (text.match(/<path class="point[^"]*"[^>]*style="opacity: 0;/g) ?? []).length;
+    const onScreen = await s.page.locator('[data-plot-id="ttc-at-onset"] .main-svg').first().evaluate((el) => el.outerHTML);
+    expect(transparentPoints(onScreen)).toBeGreaterThan(0);
+    expect(transparentPoints(svg)).toBe(0);
+    expect((svg.match(/<path class="point/g) ?? []).length).toBeGreaterThan(0);
+    expect(svg).toContain('half Earth gravity');
+    expect(svg).not.toContain('Earth gravity (9.80665');
   }, 120_000);
 
   it('shows every view in the dark theme too', async () => {

@@ -18,7 +18,7 @@ declare module 'plotly.js-dist-min' {
   export function react(root: HTMLElement, data: PlotData[], layout?: Layout, config?: Config): Promise<PlotlyHTMLElement>;
   export function newPlot(root: HTMLElement, data: PlotData[], layout?: Layout, config?: Config): Promise<PlotlyHTMLElement>;
   export function purge(root: HTMLElement): void;
-  export function toImage(root: HTMLElement, opts: { format: 'png' | 'svg'; width?: number; height?: number; scale?: number }): Promise<string>;
+  export function toImage(root: HTMLElement | { data: PlotData[]; layout?: Layout }, opts: { format: 'png' | 'svg'; width?: number; height?: number; scale?: number }): Promise<string>;
   export function relayout(root: HTMLElement, update: Record<string, unknown>): Promise<PlotlyHTMLElement>;
   export const Plots: { resize(root: HTMLElement): void };
   const Plotly: {

@@ -9,6 +9,7 @@ import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/ty
 import { Plot } from '../plot/Plot';
 import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import { fmtMs } from './trialRows';
+import { SWITCHED_OFF } from '../figures';
 
 export interface ComparisonViewProps {
   evaluation: StudyEvaluation;
@@ -121,6 +122,7 @@ export function ComparisonView(props: ComparisonViewProps) {
         y: same ? previous.y : y,
         customdata: same ? previous.customdata : ids,
         marker: { color: colour, symbol, size: 7, opacity: visible ? 0.8 : 0 },
+        meta: visible ? undefined : SWITCHED_OFF,
         hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${label}</extra>`,
         ...(byCondition ? { offsetgroup: hid } : {}),
       } as PlotData;
