@@ -13,7 +13,7 @@ import type {
 import { buildCutoffRows, fillCutoffStates, type CutoffRows } from './cutoffRows';
 import { computeTtcMatrix, type TtcMatrix } from './ttcMatrix';
 import { hypothesisAcceleration } from './hypothesisTtc';
-import { predictArrival } from '../ssm/arrival';
+import { predictArrival } from '../ssm';
 import { summarizeTtc } from './summarizeTtc';
 import { compareGroup } from './compareModels';
 import { memoInternalGravity } from './memoInternalGravity';

@@ -1,6 +1,6 @@
 import type { Recording, SignalChannel } from '../recording/types';
 import { AnalysisError } from '../errors';
-import { parseUpAxis } from '../ssm/hypotheses';
+import { parseUpAxis } from '../ssm';
 import type { PreparedTrial, StudySettings, TrialFlag, TrialSpec } from './types';
 import { reconstructVertical } from './reconstructVertical';
 import { detectRelease } from './detectRelease';

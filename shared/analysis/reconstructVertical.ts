@@ -1,8 +1,6 @@
-import { kalmanFilter } from '../ssm/kalmanFilter';
-import { rtsSmooth } from '../ssm/rtsSmooth';
-import { makeAxisModel, type HypothesisSpec } from '../ssm/hypotheses';
+import { createAxisLogLik, kalmanFilter, makeAxisModel, rtsSmooth, type HypothesisSpec } from '../ssm';
 import type { ReconstructionSettings } from './types';
-import { createAxisLogLik, fitAxisNoiseGrid, refineAxisNoiseMle, refineAxisNoiseNewton } from './fitAxisNoiseGrid';
+import { fitAxisNoiseGrid, refineAxisNoiseMle, refineAxisNoiseNewton } from './fitAxisNoiseGrid';
 import { G0_MPS2 } from './hypothesisTtc';
 
 /** Filtered and smoothed vertical states in the common 3-state layout [height, velocity, acceleration]. */

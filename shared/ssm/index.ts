@@ -26,3 +26,6 @@ export { extendedKalmanFilter, extendedRtsSmooth } from './extendedKalmanFilter'
 export { makeDragAxisModel } from './dragModel';
 export type { DragArrivalInput } from './predictArrivalDrag';
 export { predictArrivalDrag } from './predictArrivalDrag';
+export type { AxisLogLik } from './axisLogLik';
+export { createAxisLogLik } from './axisLogLik';
+export { nelderMead2 } from './minimize';

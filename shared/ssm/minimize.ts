@@ -1,5 +1,5 @@
 /**
- * Derivative-free minimisers used by the likelihood fits (internal to `shared/ssm/`).
+ * Derivative-free minimisers used by the likelihood fits (the engine's own and the timing analysis's noise search).
  */
 
 /**

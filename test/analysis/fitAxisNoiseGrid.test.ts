@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { createAxisLogLik, fitAxisNoiseGrid, refineAxisNoiseMle, refineAxisNoiseNewton } from '../../shared/analysis/fitAxisNoiseGrid';
+import { fitAxisNoiseGrid, refineAxisNoiseMle, refineAxisNoiseNewton } from '../../shared/analysis/fitAxisNoiseGrid';
+import { createAxisLogLik } from '../../shared/ssm';
 import { seededRandom } from '../../shared/analysis/seededRandom';
 import { kalmanFilter } from '../../shared/ssm/kalmanFilter';
 import { fitNoiseMle } from '../../shared/ssm/estimateNoise';
