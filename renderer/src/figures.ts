@@ -2,17 +2,7 @@
 import { loadPlotly } from './plot/loadPlotly';
 import type { Layout, PlotData } from 'plotly.js-dist-min';
 import type { OutputFile } from './host/host';
-
-/**
- * `meta` of a trace the user switched off that stays on screen, transparent, so that the axes hold still;
- * exported figures leave such traces out.
- */
-export const SWITCHED_OFF = 'forecatch:switched-off';
-
-/** What an exported image is drawn from: the plot's traces without those switched off, and its layout. */
-export function exportFigure(data: PlotData[], layout: Layout): { data: PlotData[]; layout: Layout } {
-  return { data: data.filter((t) => t.meta !== SWITCHED_OFF), layout };
-}
+import { exportFigure } from './plot/switchedOff';
 
 /** Bytes of a `data:` URL (base64 or percent-encoded). */
 export function dataUrlBytes(url: string): Uint8Array {

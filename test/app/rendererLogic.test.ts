@@ -6,7 +6,7 @@ import { buildTrialRows } from '../../renderer/src/views/trialRows';
 import { DEFAULT_INVALID_REASON, makeEdit } from '../../renderer/src/state/journalOps';
 import { applyEdit, effectiveOnset, emptyJournal, onsetEditProblem, redo, undo } from '../../shared/emg/onsetJournal';
 import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
-import { SWITCHED_OFF, exportFigure } from '../../renderer/src/figures';
+import { SWITCHED_OFF, exportFigure } from '../../renderer/src/plot/switchedOff';
 import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
 
 const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });

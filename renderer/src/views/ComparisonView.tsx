@@ -9,7 +9,7 @@ import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/ty
 import { Plot } from '../plot/Plot';
 import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import { fmtMs } from './trialRows';
-import { SWITCHED_OFF } from '../figures';
+import { SWITCHED_OFF } from '../plot/switchedOff';
 
 export interface ComparisonViewProps {
   evaluation: StudyEvaluation;
