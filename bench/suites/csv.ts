@@ -3,15 +3,26 @@
  * read through Forecatch's streaming Node reader. Reports rows/s, MB/s and peak memory during the import
  * against the size of the parsed numeric data (Float64Array bytes); peers measured in the same run:
  * reading the file's bytes with fs, and papaparse's own Node-stream parse without Forecatch's conversion.
+ * Each measurement runs in a fresh Node process (bench/csvStep.ts), so no step inherits another's heap.
  * Target: peak memory under 2x the parsed numeric data. The file is deleted afterwards.
  */
-import { createReadStream, createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { once } from 'node:events';
-import Papa from 'papaparse';
 import type { BenchSuite } from '../run';
-import { readRecordingFile } from '../../cli/io/readRecordingFile';
+import type { MemoryPeak, StepResult } from '../csvStep';
+
+const STEP_SCRIPT = fileURLToPath(new URL('../csvStep.ts', import.meta.url));
+
+/** Runs one measurement in a fresh Node process (its own heap, its own garbage collector state). */
+function runStep(step: 'fs' | 'papaparse' | 'forecatch', path: string): StepResult {
+  const res = spawnSync(process.execPath, ['--expose-gc', '--import', 'tsx', STEP_SCRIPT, step, path], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  if (res.status !== 0) throw new Error(`csv bench step ${step} failed: ${(res.stderr || res.error?.message || '').trim().split('\n').pop()}`);
+  return JSON.parse(res.stdout.trim().split('\n').pop() as string) as StepResult;
+}
 
 const TARGET_BYTES = 300e6;
 const MARKERS = 20;
@@ -50,34 +61,6 @@ async function writeCsv(path: string): Promise<number> {
   return rows;
 }
 
-interface MemoryPeak {
-  rssBytes: number;
-  heapPlusBuffersBytes: number;
-}
-
-/** Samples memory every 10 ms while `work` runs; returns the peaks above the baseline taken just before. */
-async function withMemoryPeak<T>(work: () => Promise<T>): Promise<{ value: T; ms: number; cpuMs: number; peak: MemoryPeak }> {
-  const gc = (globalThis as { gc?: () => void }).gc;
-  gc?.();
-  const base = process.memoryUsage();
-  const baseHeap = base.heapUsed + base.arrayBuffers;
-  const peak: MemoryPeak = { rssBytes: 0, heapPlusBuffersBytes: 0 };
-  const sample = () => {
-    const m = process.memoryUsage();
-    peak.rssBytes = Math.max(peak.rssBytes, m.rss - base.rss);
-    peak.heapPlusBuffersBytes = Math.max(peak.heapPlusBuffersBytes, m.heapUsed + m.arrayBuffers - baseHeap);
-  };
-  const timer = setInterval(sample, 10);
-  const t0 = performance.now();
-  const cpu0 = process.cpuUsage();
-  const value = await work();
-  const ms = performance.now() - t0;
-  const cpu = process.cpuUsage(cpu0);
-  clearInterval(timer);
-  sample();
-  return { value, ms, cpuMs: (cpu.user + cpu.system) / 1000, peak };
-}
-
 const mb = (b: number) => (b / 1e6).toFixed(1);
 
 export const suite: BenchSuite = {
@@ -88,34 +71,12 @@ export const suite: BenchSuite = {
     try {
       const rows = await writeCsv(path);
       const size = statSync(path).size;
-      const gc = (globalThis as { gc?: () => void }).gc;
-      console.log(`file: ${mb(size)} MB, ${rows} rows x ${1 + 3 * MARKERS} columns (invented, seeded); global.gc ${gc ? 'exposed' : 'not exposed (peaks include garbage not yet collected)'}`);
-
-      const fsRead = await withMemoryPeak(async () => {
-        let n = 0;
-        for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) n += (chunk as Buffer).length;
-        return n;
-      });
-
-      const papa = await withMemoryPeak(
-        () =>
-          new Promise<number>((resolve, reject) => {
-            let n = 0;
-            const parser = Papa.parse(Papa.NODE_STREAM_INPUT, { delimiter: ',' }) as unknown as NodeJS.ReadWriteStream;
-            parser.on('data', () => n++);
-            parser.on('end', () => resolve(n));
-            parser.on('error', reject);
-            createReadStream(path, { encoding: 'utf8', highWaterMark: 1 << 20 }).pipe(parser);
-          }),
-      );
-
-      const fc = await withMemoryPeak(() => readRecordingFile(path));
-      const rec = fc.value;
-      let numericBytes = 0;
-      for (const m of rec.markers?.markers ?? []) numericBytes += m.x.byteLength + m.y.byteLength + m.z.byteLength;
-      if (rec.markers?.timesS) numericBytes += rec.markers.timesS.byteLength;
-      for (const s of rec.signals) numericBytes += s.values.byteLength;
-      const readRows = rec.markers?.frameCount ?? 0;
+      console.log(`file: ${mb(size)} MB, ${rows} rows x ${1 + 3 * MARKERS} columns (invented, seeded); each step in its own fresh Node process with global.gc exposed`);
+      const fsRead = runStep('fs', path);
+      const papa = runStep('papaparse', path);
+      const fc = runStep('forecatch', path);
+      const readRows = fc.count;
+      const numericBytes = fc.numericBytes ?? 0;
       if (readRows !== rows) throw new Error(`read ${readRows} rows, wrote ${rows}`);
 
       const line = (name: string, r: { ms: number; cpuMs: number; peak: MemoryPeak }, n: number) =>
@@ -123,10 +84,10 @@ export const suite: BenchSuite = {
       console.log(`| ${'step'.padEnd(42)} | wall s | cpu s  | MB/s    | krows/s | peak rss+ | peak heap+ab | wall ratio | cpu ratio |`);
       console.log(`|${'-'.repeat(44)}|--------|--------|---------|---------|-----------|--------------|------------|-----------|`);
       console.log(line('fs read stream (bytes only)', fsRead, 0));
-      console.log(line('papaparse Node stream (rows of strings)', papa, papa.value - 1));
+      console.log(line('papaparse Node stream (rows of strings)', papa, papa.count));
       console.log(line('Forecatch readRecordingFile (Float64Array)', fc, readRows));
       console.log('ratios: Forecatch time / the row\'s time (wall clock and process CPU time; CPU time is steadier on a shared machine)');
-      console.log(`parsed numeric data: ${mb(numericBytes)} MB (${rec.markers?.markers.length} markers x 3 x ${readRows} rows x 8 bytes)`);
+      console.log(`parsed numeric data: ${mb(numericBytes)} MB (${fc.markers} markers x 3 x ${readRows} rows x 8 bytes)`);
       console.log(`peak memory / parsed numeric data: rss ${(fc.peak.rssBytes / numericBytes).toFixed(2)}x, heapUsed+arrayBuffers ${(fc.peak.heapPlusBuffersBytes / numericBytes).toFixed(2)}x (target < 2x)`);
     } finally {
       rmSync(dir, { recursive: true, force: true });
