@@ -2,7 +2,7 @@
 import { loadPlotly } from './plot/loadPlotly';
 import type { Layout, PlotData } from 'plotly.js-dist-min';
 import type { OutputFile } from './host/host';
-import { exportFigure } from './plot/switchedOff';
+import { exportFigure, omittedNames } from './plot/switchedOff';
 
 /** Bytes of a `data:` URL (base64 or percent-encoded). */
 export function dataUrlBytes(url: string): Uint8Array {
@@ -29,7 +29,7 @@ export async function renderFigures(root: ParentNode, formats: ('png' | 'svg')[]
   for (const el of Array.from(root.querySelectorAll<HTMLElement>('[data-plot-id]'))) {
     const id = (el.dataset.plotId ?? 'figure').replace(/[^\w.-]+/g, '_');
     const drawn = el as HTMLElement & { data?: PlotData[]; layout?: Layout };
-    const source = drawn.data && drawn.layout ? exportFigure(drawn.data, drawn.layout) : el;
+    const source = drawn.data && drawn.layout ? exportFigure(drawn.data, drawn.layout, omittedNames(el.dataset.exportOmit)) : el;
     for (const format of formats) {
       const url = await Plotly.toImage(source, { format, width: Math.max(800, el.clientWidth), height: Math.max(400, el.clientHeight), scale: format === 'png' ? 2 : 1 });
       files.push({ name: `${id}.${format}`, data: format === 'svg' ? new TextDecoder().decode(dataUrlBytes(url)) : dataUrlBytes(url) });

@@ -6,7 +6,7 @@ import { buildTrialRows } from '../../renderer/src/views/trialRows';
 import { DEFAULT_INVALID_REASON, makeEdit } from '../../renderer/src/state/journalOps';
 import { applyEdit, effectiveOnset, emptyJournal, onsetEditProblem, redo, undo } from '../../shared/emg/onsetJournal';
 import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
-import { SWITCHED_OFF, exportFigure } from '../../renderer/src/plot/switchedOff';
+import { exportFigure, omittedNames } from '../../renderer/src/plot/switchedOff';
 import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
 
 const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
@@ -107,15 +107,17 @@ describe('study table rows', () => {
 });
 
 describe('exported figures leave out what the user switched off', () => {
-  it('drops traces marked switched off and keeps the rest, in order, with the layout unchanged', () => {
+  it('drops the traces named by the plot element and keeps the rest, in order, with the layout unchanged', () => {
     const layout = { height: 420 };
-    const data = [
-      { name: 'no gravity', meta: undefined },
-      { name: 'Earth gravity', meta: SWITCHED_OFF },
-      { name: 'half Earth gravity' },
-    ];
-    const fig = exportFigure(data, layout);
-    expect(fig.data.map((t) => t.name)).toEqual(['no gravity', 'half Earth gravity']);
+    const data = [{ name: 'no gravity' }, { name: 'Earth gravity' }, { name: 'half Earth gravity' }, { showlegend: false }];
+    const fig = exportFigure(data, layout, omittedNames(JSON.stringify(['Earth gravity'])));
+    expect(fig.data).toEqual([{ name: 'no gravity' }, { name: 'half Earth gravity' }, { showlegend: false }]);
     expect(fig.layout).toBe(layout);
+  });
+  it('omits nothing when the attribute is absent or malformed', () => {
+    expect(omittedNames(undefined)).toEqual([]);
+    expect(omittedNames('not json')).toEqual([]);
+    expect(omittedNames('{"a":1}')).toEqual([]);
+    expect(omittedNames('["a", 3]')).toEqual(['a']);
   });
 });

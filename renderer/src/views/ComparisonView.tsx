@@ -9,7 +9,6 @@ import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/ty
 import { Plot } from '../plot/Plot';
 import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import { fmtMs } from './trialRows';
-import { SWITCHED_OFF } from '../plot/switchedOff';
 
 export interface ComparisonViewProps {
   evaluation: StudyEvaluation;
@@ -122,14 +121,15 @@ export function ComparisonView(props: ComparisonViewProps) {
         y: same ? previous.y : y,
         customdata: same ? previous.customdata : ids,
         marker: { color: colour, symbol, size: 7, opacity: visible ? 0.8 : 0 },
-        meta: visible ? undefined : SWITCHED_OFF,
         hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${label}</extra>`,
         ...(byCondition ? { offsetgroup: hid } : {}),
       } as PlotData;
       cache.set(hid, { trace, style });
       return trace;
     });
-    return { data, conditions };
+    // switched-off series are left out of exported figures
+    const omitted = all.filter((hid) => !shown.has(hid)).map(labelOf);
+    return { data, conditions, omitted };
   }, [evaluation, muscle, subject, xKind]); // eslint-disable-line react-hooks/exhaustive-deps
   // the layout changes only with the horizontal axis (fixed margins: the legend sits in the top margin
   // without pushing it, so a longer legend never relayouts the figure)
@@ -263,6 +263,7 @@ export function ComparisonView(props: ComparisonViewProps) {
         data={scatter.data}
         layout={scatterLayout}
         theme={theme}
+        exportOmit={scatter.omitted}
         onClick={(points) => {
           const id = points[0]?.customdata;
           if (typeof id === 'string') props.onOpenTrial(id);
