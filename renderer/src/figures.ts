@@ -29,7 +29,7 @@ export async function renderFigures(root: ParentNode, formats: ('png' | 'svg')[]
   for (const el of Array.from(root.querySelectorAll<HTMLElement>('[data-plot-id]'))) {
     const id = (el.dataset.plotId ?? 'figure').replace(/[^\w.-]+/g, '_');
     const drawn = el as HTMLElement & { data?: PlotData[]; layout?: Layout };
-    const source = drawn.data && drawn.layout ? exportFigure(drawn.data, drawn.layout, omittedNames(el.dataset.exportOmit)) : el;
+    const source = drawn.data && drawn.layout ? exportFigure(drawn.data, drawn.layout, omittedNames(el.dataset.exportOmit), el.dataset.exportLegend === 'true') : el;
     for (const format of formats) {
       const url = await Plotly.toImage(source, { format, width: Math.max(800, el.clientWidth), height: Math.max(400, el.clientHeight), scale: format === 'png' ? 2 : 1 });
       files.push({ name: `${id}.${format}`, data: format === 'svg' ? new TextDecoder().decode(dataUrlBytes(url)) : dataUrlBytes(url) });

@@ -6,7 +6,9 @@ import { buildTrialRows } from '../../renderer/src/views/trialRows';
 import { DEFAULT_INVALID_REASON, makeEdit } from '../../renderer/src/state/journalOps';
 import { applyEdit, effectiveOnset, emptyJournal, onsetEditProblem, redo, undo } from '../../shared/emg/onsetJournal';
 import { hypothesisStyleIndex } from '../../renderer/src/plot/palette';
-import { exportFigure, omittedNames } from '../../renderer/src/plot/switchedOff';
+import { exportFigure, hiddenTracesCss, omittedNames } from '../../renderer/src/plot/switchedOff';
+import { symbolPath } from '../../renderer/src/plot/markerSymbols';
+import { HYPOTHESIS_SYMBOLS } from '../../renderer/src/plot/palette';
 import type { StudyEvaluation, TrialSpec } from '../../shared/analysis/types';
 
 const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
@@ -113,6 +115,20 @@ describe('exported figures leave out what the user switched off', () => {
     const fig = exportFigure(data, layout, omittedNames(JSON.stringify(['Earth gravity'])));
     expect(fig.data).toEqual([{ name: 'no gravity' }, { name: 'half Earth gravity' }, { showlegend: false }]);
     expect(fig.layout).toBe(layout);
+  });
+  it('gives every kept trace a legend entry when the figure asks for the plotly legend in exports', () => {
+    const fig = exportFigure([{ name: 'a', showlegend: false }, { name: 'b', showlegend: false }], { margin: { l: 70, t: 16 } }, ['b'], true);
+    expect(fig.data).toEqual([{ name: 'a', showlegend: true }]);
+    expect(fig.layout).toEqual({ margin: { l: 70, t: 56 } });
+  });
+  it('hides switched-off trace groups of one figure by their uid, and nothing for unsafe uids', () => {
+    expect(hiddenTracesCss('ttc-at-onset', ['hyp1', 'hyp3'])).toBe('[data-plot-id="ttc-at-onset"] .tracehyp1,\n[data-plot-id="ttc-at-onset"] .tracehyp3 { display: none; }');
+    expect(hiddenTracesCss('ttc-at-onset', [])).toBe('');
+    expect(hiddenTracesCss('ttc-at-onset', ['a b', '"x'])).toBe('');
+  });
+  it('the page legend draws a distinct shape for every hypothesis symbol', () => {
+    const paths = HYPOTHESIS_SYMBOLS.map(symbolPath);
+    expect(new Set(paths).size).toBe(HYPOTHESIS_SYMBOLS.length);
   });
   it('omits nothing when the attribute is absent or malformed', () => {
     expect(omittedNames(undefined)).toEqual([]);

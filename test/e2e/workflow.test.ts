@@ -112,7 +112,7 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     const after = await posteriors();
     expect(after.length).toBe(before.length - 1);
     expect(after).not.toEqual(before.slice(0, after.length));
-    const legend = await s.page.locator('[data-plot-id="ttc-at-onset"] .legendtext').allTextContents();
+    const legend = await s.page.locator('ul[aria-label="Hypotheses shown"] li').allTextContents();
     expect(legend.some((t) => t.includes(earth))).toBe(false);
     expect(legend.some((t) => t.includes('half Earth gravity'))).toBe(true);
   }, 120_000);
@@ -158,8 +158,8 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     s.page.on('download', onDownload);
     await s.page.click('button[role=tab]:has-text("Hypotheses")');
     await s.page.waitForSelector('[data-plot-id="ttc-at-onset"] .main-svg', { timeout: 60_000 });
-    // switched on and off again while the view is open, Earth gravity's points stay on screen, transparent
-    const legend = () => s.page.locator('[data-plot-id="ttc-at-onset"] .legendtext').allTextContents();
+    // switched on and off again while the view is open, Earth gravity's trace stays in the figure, hidden
+    const legend = () => s.page.locator('ul[aria-label="Hypotheses shown"] li').allTextContents();
     await s.page.check('input[data-hypothesis="gravity"]');
     await expect.poll(async () => (await legend()).some((t) => t.includes('Earth gravity (9.80665'))).toBe(true);
     await s.page.uncheck('input[data-hypothesis="gravity"]');
@@ -168,12 +168,14 @@ describe.skipIf(SKIP_REASON !== null)('browser build, end to end', () => {
     await expect.poll(() => downloads.some((d) => d.name === 'ttc-at-onset.svg'), { timeout: 60_000 }).toBe(true);
     s.page.off('download', onDownload);
     const svg = readFileSync(downloads.find((d) => d.name === 'ttc-at-onset.svg')!.path, 'utf8');
-    // on screen the switched-off series stays as transparent points (steady axes); the file has none of them
-    const transparentPoints = (text: string) => (text.match(/<path class="point[^"]*"[^>]*style="opacity: 0;/g) ?? []).length;
-    const onScreen = await s.page.locator('[data-plot-id="ttc-at-onset"] .main-svg').first().evaluate((el) => el.outerHTML);
-    expect(transparentPoints(onScreen)).toBeGreaterThan(0);
-    expect(transparentPoints(svg)).toBe(0);
+    // on screen the switched-off series stays in the figure, its trace group hidden (steady axes); the file
+    // has no trace of it, and plotly's legend lists the others
+    const hiddenGroups = await s.page.locator('[data-plot-id="ttc-at-onset"] .scatterlayer .trace').evaluateAll((gs) => gs.filter((g) => getComputedStyle(g).display === 'none').length);
+    expect(hiddenGroups).toBe(1);
+    const groupsOnScreen = await s.page.locator('[data-plot-id="ttc-at-onset"] .scatterlayer .trace').count();
+    expect((svg.match(/class="trace scatter/g) ?? []).length).toBe(groupsOnScreen - 1);
     expect((svg.match(/<path class="point/g) ?? []).length).toBeGreaterThan(0);
+    expect(svg).toContain('class="legendtext"');
     expect(svg).toContain('half Earth gravity');
     expect(svg).not.toContain('Earth gravity (9.80665');
   }, 120_000);

@@ -20,6 +20,8 @@ export interface PlotProps {
   plotId: string;
   /** Names of traces that figure export leaves out (series switched off but kept on screen, transparent). */
   exportOmit?: readonly string[];
+  /** Exported images show plotly's legend for every kept trace (figures whose on-screen legend is the page's). */
+  exportLegend?: boolean;
   onClick?: (points: { curveNumber: number; pointIndex: number; customdata?: unknown; x: unknown; y: unknown }[]) => void;
   onRelayout?: (update: Record<string, unknown>, el: PlotlyHTMLElement) => void;
   /** Called after each draw (used to time repaints). */
@@ -106,5 +108,5 @@ export function Plot(props: PlotProps) {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [props.data, props.layout, props.theme, props.config]);
 
-  return <div ref={ref} className={props.className ?? 'plot'} role="img" aria-label={props.label} data-plot-id={props.plotId} data-export-omit={props.exportOmit?.length ? JSON.stringify(props.exportOmit) : undefined} />;
+  return <div ref={ref} className={props.className ?? 'plot'} role="img" aria-label={props.label} data-plot-id={props.plotId} data-export-omit={props.exportOmit?.length ? JSON.stringify(props.exportOmit) : undefined} data-export-legend={props.exportLegend ? 'true' : undefined} />;
 }

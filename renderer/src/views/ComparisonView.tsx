@@ -9,6 +9,8 @@ import type { StudyEvaluation, StudySettings } from '../../../shared/analysis/ty
 import { Plot } from '../plot/Plot';
 import { HYPOTHESIS_DASHES, HYPOTHESIS_SYMBOLS, THEMES, hypothesisColour, hypothesisStyleIndex, type ThemeName } from '../plot/palette';
 import { fmtMs } from './trialRows';
+import { MarkerLegend, type LegendEntry } from '../plot/MarkerLegend';
+import { hiddenTracesCss } from '../plot/switchedOff';
 
 export interface ComparisonViewProps {
   evaluation: StudyEvaluation;
@@ -66,10 +68,10 @@ export function ComparisonView(props: ComparisonViewProps) {
 
   // per hypothesis, the trace last drawn: when a hypothesis' points are unchanged (a change of the hypothesis
   // set leaves the other hypotheses' times-to-contact as they were), the same trace object is handed to
-  // Plotly.react again, which then skips it. A hypothesis switched off keeps its trace and points, made
-  // transparent, out of the legend and out of hover (style-only edits for plotly: switching hypotheses
-  // neither recomputes the figure nor moves its axes); against condition, where every trace takes a slot in
-  // each category, it is hidden outright instead.
+  // Plotly.react again, which then skips it. A hypothesis switched off keeps its trace and points, hidden by a
+  // style rule on its trace group and skipped by hover (plotly redraws nothing for that), and the legend is the
+  // page's own, so switching hypotheses neither redraws the figure nor moves its axes; against condition,
+  // where every trace takes a slot in each category, it is hidden outright instead.
   const traceCache = useRef(new Map<string, { trace: PlotData; style: string }>());
   const traceCacheKey = useRef('');
   const scatter = useMemo(() => {
@@ -82,7 +84,7 @@ export function ComparisonView(props: ComparisonViewProps) {
     if (traceCacheKey.current !== key) traceCache.current.clear();
     traceCacheKey.current = key;
     const cache = traceCache.current;
-    const data: PlotData[] = all.map((hid) => {
+    const data: PlotData[] = all.map((hid, index) => {
       const k = hypothesisStyleIndex(hid, shown.has(hid) ? evaluation.hypotheses : all);
       const visible = shown.has(hid);
       const previous = cache.get(hid)?.trace;
@@ -113,30 +115,35 @@ export function ComparisonView(props: ComparisonViewProps) {
         type: 'scatter',
         mode: 'markers',
         name: label,
+        uid: `hyp${index}`,
         visible: visible || !byCondition,
-        showlegend: visible,
+        showlegend: false,
         hoverinfo: visible ? 'all' : 'skip',
         // unchanged points keep their arrays (plotly compares data arrays by identity)
         x: same ? previous.x : x,
         y: same ? previous.y : y,
         customdata: same ? previous.customdata : ids,
-        marker: { color: colour, symbol, size: 7, opacity: visible ? 0.8 : 0 },
+        marker: { color: colour, symbol, size: 7, opacity: 0.8 },
         hovertemplate: `trial %{customdata}<br>%{x}<br>ttc at onset %{y:.1f} ms<extra>${label}</extra>`,
         ...(byCondition ? { offsetgroup: hid } : {}),
       } as PlotData;
       cache.set(hid, { trace, style });
       return trace;
     });
-    // switched-off series are left out of exported figures
+    // switched-off series: hidden on screen by a style rule, left out of exported figures
     const omitted = all.filter((hid) => !shown.has(hid)).map(labelOf);
-    return { data, conditions, omitted };
+    const hiddenCss = hiddenTracesCss('ttc-at-onset', all.map((hid, index) => (shown.has(hid) ? '' : `hyp${index}`)).filter(Boolean));
+    const legend: LegendEntry[] = data
+      .filter((_, index) => shown.has(all[index]))
+      .map((t) => ({ name: t.name as string, colour: (t.marker as { color: string }).color, symbol: (t.marker as { symbol: string }).symbol }));
+    return { data, conditions, omitted, hiddenCss, legend };
   }, [evaluation, muscle, subject, xKind]); // eslint-disable-line react-hooks/exhaustive-deps
-  // the layout changes only with the horizontal axis (fixed margins: the legend sits in the top margin
-  // without pushing it, so a longer legend never relayouts the figure)
+  // the layout changes only with the horizontal axis (fixed margins; exported images widen the top margin for
+  // plotly's legend, which sits there without pushing the plot area)
   const conditionKey = scatter.conditions.join('\u0000');
   const scatterLayout = useMemo((): Layout => ({
     height: 420,
-    margin: { l: 70, r: 20, t: 56, b: 50 },
+    margin: { l: 70, r: 20, t: 16, b: 50 },
     legend: { orientation: 'h', xref: 'container', yref: 'container', x: 0.01, y: 0.995, xanchor: 'left', yanchor: 'top' },
     hovermode: 'closest',
     xaxis: xKind === 'duration' ? { title: { text: 'motion duration, release to contact (s)' } } : { title: { text: 'condition' }, type: 'category', categoryarray: scatter.conditions },
@@ -257,6 +264,8 @@ export function ComparisonView(props: ComparisonViewProps) {
         </label>
         <span className="muted">A constant time-to-contact at onset under the right hypothesis shows as a flat cloud. Click a point to open its trial.</span>
       </div>
+      {scatter.hiddenCss && <style>{scatter.hiddenCss}</style>}
+      <MarkerLegend entries={scatter.legend} label="Hypotheses shown" />
       <Plot
         plotId="ttc-at-onset"
         label="Time-to-contact at onset per hypothesis"
@@ -264,6 +273,7 @@ export function ComparisonView(props: ComparisonViewProps) {
         layout={scatterLayout}
         theme={theme}
         exportOmit={scatter.omitted}
+        exportLegend
         onClick={(points) => {
           const id = points[0]?.customdata;
           if (typeof id === 'string') props.onOpenTrial(id);
