@@ -6,6 +6,7 @@
  * four sections run in one sweep over memory with all four recursions in flight. The transfer function is the
  * same as the sections' (same poles, same zeros, same gain); only the rounding differs (test/emg/bandCascade.test.ts).
  */
+import { oddExtensions } from './oddExtensions';
 import type { Sos } from './zpkToSos';
 
 /** The band-pass cascade of {@link bandCascadePlan}. */
@@ -117,14 +118,8 @@ function run(plan: BandCascade, buf: Float64Array, start: number, end: number, b
  */
 export function bandFiltFilt(plan: BandCascade, src: Float64Array, shift: number, out: Float64Array, edge: number): void {
   const n = src.length;
-  const left = new Float64Array(edge);
-  const right = new Float64Array(edge);
+  const { left, right } = oddExtensions(src, shift, edge);
   const x0 = src[0] - shift;
-  const xn = src[n - 1] - shift;
-  for (let i = 0; i < edge; i++) {
-    left[i] = 2 * x0 - (src[edge - i] - shift);
-    right[i] = 2 * xn - (src[n - 2 - i] - shift);
-  }
   if (shift === 0) {
     if (src !== out) out.set(src);
   } else for (let i = 0; i < n; i++) out[i] = src[i] - shift;

@@ -3,6 +3,7 @@
  * the output and the offset removal are one loop, and the odd-extension padding is read from the source.
  */
 import { bandCascadePlan, bandFiltFilt } from './bandCascade';
+import { oddExtensions } from './oddExtensions';
 import { sosFiltZi } from './sosFilt';
 import { sosFilterInPlace } from './sosKernel';
 import type { Sos } from './zpkToSos';
@@ -25,16 +26,8 @@ export function filtFiltFrom(sos: Sos, src: Float64Array, shift: number, out: Fl
     return;
   }
   const n = src.length;
-  // The odd extensions live in two small buffers; the kernel runs left, middle, right with the state carried
-  // across, which is the same arithmetic as filtering one contiguous extended array.
-  const left = new Float64Array(edge);
-  const right = new Float64Array(edge);
+  const { left, right } = oddExtensions(src, shift, edge);
   const x0 = src[0] - shift;
-  const xn = src[n - 1] - shift;
-  for (let i = 0; i < edge; i++) {
-    left[i] = 2 * x0 - (src[edge - i] - shift);
-    right[i] = 2 * xn - (src[n - 2 - i] - shift);
-  }
   const zi = sosFiltZi(sos);
   const state = new Float64Array(zi.length);
   let first = edge > 0 ? left[0] : x0;
