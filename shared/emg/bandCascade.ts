@@ -7,6 +7,7 @@
  * same as the sections' (same poles, same zeros, same gain); only the rounding differs (test/emg/bandCascade.test.ts).
  */
 import { oddExtensions } from './oddExtensions';
+import { loadShifted } from './sosKernel';
 import type { Sos } from './zpkToSos';
 
 /** The band-pass cascade of {@link bandCascadePlan}. */
@@ -72,7 +73,7 @@ function stateLength(plan: BandCascade): number {
  * Sets the state to the steady state of a constant input c: every input history c, every output 0 (the
  * numerator (1 - z^-2) passes no constant), the same steady state as scipy's sosfilt_zi(sos) * c.
  */
-function restAt(plan: BandCascade, state: Float64Array, c: number): void {
+function restAt(state: Float64Array, c: number): void {
   state.fill(0);
   state[0] = c;
   state[1] = c;
@@ -94,14 +95,15 @@ function run(plan: BandCascade, buf: Float64Array, start: number, end: number, b
   const first = backward ? end - 1 : start;
   let section = 0;
   let o = 0;
-  plan.sweeps.forEach((k, i) => {
+  for (let i = 0; i < plan.sweeps.length; i++) {
+    const k = plan.sweeps[i];
     const gain = i === plan.sweeps.length - 1 ? plan.gain : 1;
     if (k === 4) sweep4(plan.a, section, buf, first, count, step, state, o, gain);
     else if (k === 2) sweep2(plan.a, section, buf, first, count, step, state, o, gain);
     else sweep1(plan.a, section, buf, first, count, step, state, o, gain);
     section += k;
     o += 2 + 2 * k;
-  });
+  }
 }
 
 /**
@@ -120,15 +122,13 @@ export function bandFiltFilt(plan: BandCascade, src: Float64Array, shift: number
   const n = src.length;
   const { left, right } = oddExtensions(src, shift, edge);
   const x0 = src[0] - shift;
-  if (shift === 0) {
-    if (src !== out) out.set(src);
-  } else for (let i = 0; i < n; i++) out[i] = src[i] - shift;
+  loadShifted(src, shift, out, 0, n);
   const state = new Float64Array(stateLength(plan));
-  restAt(plan, state, edge > 0 ? left[0] : x0);
+  restAt(state, edge > 0 ? left[0] : x0);
   run(plan, left, 0, edge, false, state);
   run(plan, out, 0, n, false, state);
   run(plan, right, 0, edge, false, state);
-  restAt(plan, state, edge > 0 ? right[edge - 1] : out[n - 1]);
+  restAt(state, edge > 0 ? right[edge - 1] : out[n - 1]);
   run(plan, right, 0, edge, true, state);
   run(plan, out, 0, n, true, state);
 }

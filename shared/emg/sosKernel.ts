@@ -71,7 +71,7 @@ export function sosFilterInPlace(
 }
 
 /** buf[start..end) = src[start..end) - shift (a plain copy when shift is 0; nothing when src is buf too). */
-function loadShifted(src: Float64Array, shift: number, buf: Float64Array, start: number, end: number): void {
+export function loadShifted(src: Float64Array, shift: number, buf: Float64Array, start: number, end: number): void {
   if (shift === 0) {
     if (src !== buf) buf.set(src.subarray(start, end), start);
     return;
